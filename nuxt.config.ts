@@ -1,0 +1,46 @@
+// The card layout lives at the repository root. Pin srcDir so Nuxt 4 never moves it to app/
+// (it switches as soon as an app/ folder appears: nuxt/nuxt packages/schema/src/config/common.ts).
+export default defineNuxtConfig({
+  srcDir: '.',
+  compatibilityDate: '2026-11-01',
+  devtools: { enabled: false },
+  telemetry: false,
+  modules: ['@nuxt/content', '@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils', '@nuxt/eslint'],
+  css: ['~/assets/css/main.css'],
+  app: {
+    head: {
+      htmlAttrs: { lang: 'en-IE' },
+      title: 'Perpend',
+      meta: [
+        { name: 'viewport', content: 'width=device-width, initial-scale=1' },
+        { name: 'description', content: 'Technical enquiries, calculations and the detail library of a masonry-system supplier.' },
+      ],
+      link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
+    },
+  },
+  runtimeConfig: {
+    db: {
+      host: '127.0.0.1',
+      port: 3307,
+      name: 'perpend',
+      user: 'perpend',
+      password: 'perpend-local',
+    },
+    mailUrl: 'smtp://127.0.0.1:2525',
+    mailFrom: 'Perpend technical desk <desk@perpend.invalid>',
+    uploadDir: './var/uploads',
+    public: {
+      appVersion: process.env.npm_package_version || '0.1.0',
+      demoNotice: true,
+    },
+  },
+  content: {
+    // better-sqlite3 12 is the connector that runs on Node 20 (13 crashes there).
+    experimental: { sqliteConnector: 'better-sqlite3' },
+  },
+  eslint: { config: { stylistic: false } },
+  typescript: { strict: true },
+  nitro: {
+    experimental: { tasks: false },
+  },
+})

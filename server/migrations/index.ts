@@ -1,0 +1,5 @@
+import { foundation } from './0001-foundation'
+import type { Migration } from './types'
+
+/** Every migration in the order it runs. Append; never edit one that has landed. */
+export const migrations: Migration[] = [foundation]

@@ -1,0 +1,56 @@
+import { DataTypes, Model } from 'sequelize'
+import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize'
+
+export class Enquiry extends Model<InferAttributes<Enquiry>, InferCreationAttributes<Enquiry>> {
+  declare id: CreationOptional<number>
+  declare ref: string
+  declare refYear: number
+  declare refSeq: number
+  declare status: CreationOptional<string>
+  declare topic: string
+  declare priority: CreationOptional<string>
+  declare subject: string
+  declare question: string
+  declare requesterUserId: ForeignKey<number> | null
+  declare requesterName: string
+  declare requesterEmail: string
+  declare requesterPhone: string | null
+  declare requesterOrganisation: string | null
+  declare organisationId: ForeignKey<number> | null
+  declare projectId: ForeignKey<number> | null
+  declare assigneeId: ForeignKey<number> | null
+  declare receivedAt: CreationOptional<Date>
+  declare firstResponseAt: Date | null
+  declare answeredAt: Date | null
+  declare closedAt: Date | null
+  declare createdAt: CreationOptional<Date>
+  declare updatedAt: CreationOptional<Date>
+
+  static initModel(sequelize: Sequelize) {
+    Enquiry.init({
+      id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+      ref: { type: DataTypes.STRING(20), allowNull: false },
+      refYear: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: false },
+      refSeq: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+      status: { type: DataTypes.STRING(20), allowNull: false, defaultValue: 'received' },
+      topic: { type: DataTypes.STRING(30), allowNull: false },
+      priority: { type: DataTypes.STRING(10), allowNull: false, defaultValue: 'normal' },
+      subject: { type: DataTypes.STRING(200), allowNull: false },
+      question: { type: DataTypes.TEXT, allowNull: false },
+      requesterUserId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+      requesterName: { type: DataTypes.STRING(200), allowNull: false },
+      requesterEmail: { type: DataTypes.STRING(254), allowNull: false },
+      requesterPhone: { type: DataTypes.STRING(40), allowNull: true },
+      requesterOrganisation: { type: DataTypes.STRING(200), allowNull: true },
+      organisationId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+      projectId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+      assigneeId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+      receivedAt: { type: DataTypes.DATE(3), allowNull: false, defaultValue: DataTypes.NOW },
+      firstResponseAt: { type: DataTypes.DATE(3), allowNull: true },
+      answeredAt: { type: DataTypes.DATE(3), allowNull: true },
+      closedAt: { type: DataTypes.DATE(3), allowNull: true },
+      createdAt: DataTypes.DATE(3),
+      updatedAt: DataTypes.DATE(3),
+    }, { sequelize, tableName: 'enquiries', underscored: true })
+  }
+}
