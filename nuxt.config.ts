@@ -29,6 +29,16 @@ export default defineNuxtConfig({
     mailUrl: 'smtp://127.0.0.1:2525',
     mailFrom: 'Perpend technical desk <desk@perpend.invalid>',
     uploadDir: './var/uploads',
+    // Base of the links in e-mails; never taken from the request's Host header (that would let a caller
+    // point password-reset links at their own site).
+    siteUrl: 'http://127.0.0.1:3000',
+    mailPollMs: 3000,
+    trustProxy: false,
+    session: {
+      name: 'perpend-session',
+      maxAge: 60 * 60 * 12,
+      cookie: { sameSite: 'lax', secure: true, httpOnly: true },
+    },
     public: {
       appVersion: process.env.npm_package_version || '0.1.0',
       demoNotice: true,

@@ -1,10 +1,14 @@
 import type { Sequelize } from 'sequelize'
+import { AuditEvent } from './audit-event'
 import { Enquiry } from './enquiry'
 import { Organisation } from './organisation'
+import { OutboxMessage } from './outbox-message'
 import { Project } from './project'
+import { SignInAttempt } from './sign-in-attempt'
 import { User } from './user'
+import { UserToken } from './user-token'
 
-export { Enquiry, Organisation, Project, User }
+export { AuditEvent, Enquiry, Organisation, OutboxMessage, Project, SignInAttempt, User, UserToken }
 
 let initialised: Sequelize | null = null
 
@@ -15,6 +19,10 @@ export function initModels(sequelize: Sequelize) {
   User.initModel(sequelize)
   Project.initModel(sequelize)
   Enquiry.initModel(sequelize)
+  UserToken.initModel(sequelize)
+  SignInAttempt.initModel(sequelize)
+  AuditEvent.initModel(sequelize)
+  OutboxMessage.initModel(sequelize)
 
   Organisation.hasMany(User, { foreignKey: 'organisationId', as: 'members' })
   User.belongsTo(Organisation, { foreignKey: 'organisationId', as: 'organisation' })

@@ -1,0 +1,96 @@
+import { readdirSync, statSync } from 'node:fs'
+import { join, relative } from 'node:path'
+import { QueryTypes } from 'sequelize'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { call, currentYear, demo, signIn } from '../support/api'
+import { closeTestDb, testDb } from '../support/db'
+import { rootDir, useBuiltServer } from '../support/server'
+
+/**
+ * Every route file under server/api, called as each kind of caller. Writes are sent with an empty body:
+ * a route that lets the caller in answers 400 (its input is checked after its access), one that does not
+ * answers 401/403 first — so the whole matrix runs without changing any data.
+ * (nuxt-auth-utils' own GET /api/_auth/session is not a file here; it returns only the caller's own session.)
+ */
+type Who = 'anon' | 'specA' | 'specB' | 'officer' | 'manager' | 'admin'
+const who: Who[] = ['anon', 'specA', 'specB', 'officer', 'manager', 'admin']
+const row = (...codes: [number, number, number, number, number, number]) => Object.fromEntries(who.map((w, i) => [w, codes[i]])) as Record<Who, number>
+
+// Placeholders filled in beforeAll: {ref} is an enquiry of specifier A's organisation, {org} that organisation,
+// {user} specifier A's user id.
+//                                                    anon specA specB officer manager admin
+const matrix: Record<string, { path: string, expect: Record<Who, number> }> = {
+  'GET /api/health': { path: '/api/health', expect: row(200, 200, 200, 200, 200, 200) },
+  'GET /api/auth/me': { path: '/api/auth/me', expect: row(200, 200, 200, 200, 200, 200) },
+  'POST /api/auth/sign-in': { path: '/api/auth/sign-in', expect: row(400, 400, 400, 400, 400, 400) },
+  'POST /api/auth/sign-out': { path: '/api/auth/sign-out', expect: row(200, 200, 200, 200, 200, 200) },
+  'POST /api/auth/register': { path: '/api/auth/register', expect: row(400, 400, 400, 400, 400, 400) },
+  'POST /api/auth/verify-email': { path: '/api/auth/verify-email', expect: row(400, 400, 400, 400, 400, 400) },
+  'POST /api/auth/forgot-password': { path: '/api/auth/forgot-password', expect: row(400, 400, 400, 400, 400, 400) },
+  'POST /api/auth/set-password': { path: '/api/auth/set-password', expect: row(400, 400, 400, 400, 400, 400) },
+  'GET /api/admin/users': { path: '/api/admin/users', expect: row(401, 403, 403, 403, 403, 200) },
+  'POST /api/admin/users': { path: '/api/admin/users', expect: row(401, 403, 403, 403, 403, 400) },
+  'PATCH /api/admin/users/[id]': { path: '/api/admin/users/{user}', expect: row(401, 403, 403, 403, 403, 400) },
+  'GET /api/admin/organisations': { path: '/api/admin/organisations', expect: row(401, 403, 403, 403, 403, 200) },
+  'POST /api/admin/organisations': { path: '/api/admin/organisations', expect: row(401, 403, 403, 403, 403, 400) },
+  'GET /api/admin/organisations/[id]': { path: '/api/admin/organisations/{org}', expect: row(401, 403, 403, 403, 403, 200) },
+  'POST /api/admin/organisations/[id]/merge': { path: '/api/admin/organisations/{org}/merge', expect: row(401, 403, 403, 403, 403, 400) },
+  'GET /api/admin/audit': { path: '/api/admin/audit', expect: row(401, 403, 403, 403, 403, 200) },
+  'GET /api/enquiries/mine': { path: '/api/enquiries/mine', expect: row(401, 200, 200, 403, 403, 403) },
+  'GET /api/enquiries/[ref]': { path: '/api/enquiries/{ref}', expect: row(401, 200, 404, 200, 200, 200) },
+}
+
+/** 'server/api/admin/users/[id].patch.ts' → 'PATCH /api/admin/users/[id]' */
+function routeKey(file: string): string {
+  const rel = relative(join(rootDir, 'server'), file).replace(/\\/g, '/').replace(/\.ts$/, '')
+  const m = /^(.*?)(?:\.(get|post|put|patch|delete))?$/.exec(rel)!
+  const path = `/${m[1]!.replace(/(^|\/)index$/, '')}`
+  return `${(m[2] ?? 'all').toUpperCase()} ${path}`
+}
+
+function routeFiles(dir: string): string[] {
+  return readdirSync(dir).flatMap((name) => {
+    const full = join(dir, name)
+    return statSync(full).isDirectory() ? routeFiles(full) : name.endsWith('.ts') ? [full] : []
+  })
+}
+
+describe('access matrix: every route × every kind of caller', async () => {
+  await useBuiltServer()
+  const cookies: Partial<Record<Who, string>> = {}
+  const values: Record<string, string> = {}
+
+  beforeAll(async () => {
+    cookies.specA = await signIn(demo.specA)
+    cookies.specB = await signIn(demo.specB)
+    cookies.officer = await signIn(demo.officer)
+    cookies.manager = await signIn(demo.manager)
+    cookies.admin = await signIn(demo.admin)
+    const [user] = await testDb().query<{ id: number, organisation_id: number }>(
+      'SELECT id, organisation_id FROM users WHERE email = ?', { replacements: [demo.specA], type: QueryTypes.SELECT })
+    const [enquiry] = await testDb().query<{ ref: string }>(
+      'SELECT ref FROM enquiries WHERE organisation_id = ? AND ref_year = ? ORDER BY ref_seq LIMIT 1',
+      { replacements: [user!.organisation_id, currentYear()], type: QueryTypes.SELECT })
+    values.user = String(user!.id)
+    values.org = String(user!.organisation_id)
+    values.ref = enquiry!.ref
+  })
+  afterAll(closeTestDb)
+
+  it('has a row for every route file and no row for a route that is gone', () => {
+    const keys = routeFiles(join(rootDir, 'server', 'api')).map(routeKey).sort()
+    expect(Object.keys(matrix).sort()).toEqual(keys)
+  })
+
+  const cases = Object.entries(matrix).flatMap(([key, entry]) => who.map(w => ({ key, who: w, entry })))
+  it.each(cases)('$key as $who', async ({ key, who: caller, entry }) => {
+    const [method] = key.split(' ') as [string]
+    const path = entry.path.replace(/\{(\w+)\}/g, (_, name: string) => values[name]!)
+    const res = await call(path, {
+      method,
+      cookie: cookies[caller],
+      body: method === 'GET' ? undefined : {},
+    })
+    expect(res.status, JSON.stringify(res.body)).toBe(entry.expect[caller])
+  })
+})
