@@ -1,4 +1,3 @@
-// @ts-check
 /**
  * Draws the section and plan SVGs of the detail library from the details' front matter.
  *

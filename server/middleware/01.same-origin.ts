@@ -8,7 +8,9 @@ const SAFE = new Set(['GET', 'HEAD', 'OPTIONS'])
 export default defineEventHandler((event) => {
   if (SAFE.has(event.method)) return
   if (!event.path.startsWith('/api/')) return
-  const host = getRequestHeader(event, 'x-forwarded-host') && useRuntimeConfig().trustProxy
+  // The mail provider's inbound hook is no browser; it proves itself with its shared secret (requireInboundSecret).
+  if (event.path.split('?')[0] === '/api/mail/inbound') return
+  const host = getRequestHeader(event, 'x-forwarded-host') && String(useRuntimeConfig().trustProxy) === 'true'
     ? getRequestHeader(event, 'x-forwarded-host')
     : getRequestHeader(event, 'host')
   const origin = getRequestHeader(event, 'origin') ?? getRequestHeader(event, 'referer')

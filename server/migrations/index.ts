@@ -1,6 +1,10 @@
 import { foundation } from './0001-foundation'
 import { accounts } from './0002-accounts'
+import { desk } from './0003-desk'
+import { calculations } from './0004-calculations'
+import { libraryStatus } from './0005-library-status'
+import { inboundMail } from './0006-inbound-mail'
 import type { Migration } from './types'
 
 /** Every migration in the order it runs. Append; never edit one that has landed. */
-export const migrations: Migration[] = [foundation, accounts]
+export const migrations: Migration[] = [foundation, accounts, desk, calculations, libraryStatus, inboundMail]

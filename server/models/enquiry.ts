@@ -23,6 +23,13 @@ export class Enquiry extends Model<InferAttributes<Enquiry>, InferCreationAttrib
   declare firstResponseAt: Date | null
   declare answeredAt: Date | null
   declare closedAt: Date | null
+  declare mergedIntoId: ForeignKey<number> | null
+  declare replyToken: string | null
+  declare firstResponseDueAt: Date | null
+  declare answerDueAt: Date | null
+  declare nextDueAt: Date | null
+  declare waitingSince: Date | null
+  declare lastActivityAt: CreationOptional<Date>
   declare createdAt: CreationOptional<Date>
   declare updatedAt: CreationOptional<Date>
 
@@ -49,6 +56,13 @@ export class Enquiry extends Model<InferAttributes<Enquiry>, InferCreationAttrib
       firstResponseAt: { type: DataTypes.DATE(3), allowNull: true },
       answeredAt: { type: DataTypes.DATE(3), allowNull: true },
       closedAt: { type: DataTypes.DATE(3), allowNull: true },
+      mergedIntoId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+      replyToken: { type: DataTypes.CHAR(32), allowNull: true },
+      firstResponseDueAt: { type: DataTypes.DATE(3), allowNull: true },
+      answerDueAt: { type: DataTypes.DATE(3), allowNull: true },
+      nextDueAt: { type: DataTypes.DATE(3), allowNull: true },
+      waitingSince: { type: DataTypes.DATE(3), allowNull: true },
+      lastActivityAt: { type: DataTypes.DATE(3), allowNull: false, defaultValue: DataTypes.NOW },
       createdAt: DataTypes.DATE(3),
       updatedAt: DataTypes.DATE(3),
     }, { sequelize, tableName: 'enquiries', underscored: true })

@@ -21,6 +21,11 @@ export interface Caller {
 /** The signed-in person, re-read from the database so a deactivation or role change bites on the next request. */
 export async function currentCaller(event: H3Event): Promise<Caller | null> {
   if (event.context.caller !== undefined) return event.context.caller as Caller | null
+  // Reading a session creates one; without a session cookie there is nobody to look up, and no cookie to set.
+  if (!getCookie(event, useRuntimeConfig().session?.name || 'nuxt-session')) {
+    event.context.caller = null
+    return null
+  }
   const session = await getUserSession(event)
   let caller: Caller | null = null
   if (session.user?.id) {

@@ -25,6 +25,7 @@ export async function recordAudit(event: H3Event | null, entry: AuditEntry, tran
 
 /** The caller's address as the server sees it (the proxy's own address unless NUXT_TRUST_PROXY is set). */
 export function clientAddress(event: H3Event): string {
-  const trustProxy = useRuntimeConfig().trustProxy === true || useRuntimeConfig().trustProxy === 'true'
+  // Environment overrides arrive as strings, the default as a boolean.
+  const trustProxy = String(useRuntimeConfig().trustProxy) === 'true'
   return (getRequestIP(event, { xForwardedFor: trustProxy }) ?? 'unknown').slice(0, 45)
 }

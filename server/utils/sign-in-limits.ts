@@ -31,7 +31,7 @@ export async function assertNotLockedOut(event: H3Event, email: string, ip: stri
   const until = [byAccount, byAddress].filter((d): d is Date => !!d).sort((a, b) => b.getTime() - a.getTime())[0]
   if (!until) return
   const seconds = Math.max(1, Math.ceil((until.getTime() - Date.now()) / 1000))
-  setResponseHeader(event, 'Retry-After', String(seconds))
+  setResponseHeader(event, 'Retry-After', seconds)
   const minutes = Math.ceil(seconds / 60)
   throw createError({
     statusCode: 429,

@@ -2,7 +2,8 @@ import { readdirSync, statSync } from 'node:fs'
 import { join, relative } from 'node:path'
 import { QueryTypes } from 'sequelize'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { call, currentYear, demo, signIn } from '../support/api'
+import { call, callForm, currentYear, demo, signIn } from '../support/api'
+import { tinyPng } from '../support/files'
 import { closeTestDb, testDb } from '../support/db'
 import { rootDir, useBuiltServer } from '../support/server'
 
@@ -37,7 +38,32 @@ const matrix: Record<string, { path: string, expect: Record<Who, number> }> = {
   'POST /api/admin/organisations/[id]/merge': { path: '/api/admin/organisations/{org}/merge', expect: row(401, 403, 403, 403, 403, 400) },
   'GET /api/admin/audit': { path: '/api/admin/audit', expect: row(401, 403, 403, 403, 403, 200) },
   'GET /api/enquiries/mine': { path: '/api/enquiries/mine', expect: row(401, 200, 200, 403, 403, 403) },
+  'GET /api/enquiries': { path: '/api/enquiries', expect: row(401, 403, 403, 200, 200, 200) },
+  'POST /api/enquiries': { path: '/api/enquiries', expect: row(400, 400, 400, 400, 400, 400) },
   'GET /api/enquiries/[ref]': { path: '/api/enquiries/{ref}', expect: row(401, 200, 404, 200, 200, 200) },
+  'PATCH /api/enquiries/[ref]': { path: '/api/enquiries/{ref}', expect: row(401, 403, 403, 400, 400, 400) },
+  'POST /api/enquiries/[ref]/messages': { path: '/api/enquiries/{ref}/messages', expect: row(401, 400, 404, 400, 400, 400) },
+  'POST /api/enquiries/[ref]/merge': { path: '/api/enquiries/{ref}/merge', expect: row(401, 403, 403, 400, 400, 400) },
+  'GET /api/enquiries/[ref]/attachments/[id]': { path: '/api/enquiries/{fileRef}/attachments/{file}', expect: row(401, 200, 404, 200, 200, 200) },
+  'GET /api/enquiries/[ref]/calculations': { path: '/api/enquiries/{ref}/calculations', expect: row(401, 200, 404, 200, 200, 200) },
+  'POST /api/enquiries/[ref]/calculations': { path: '/api/enquiries/{ref}/calculations', expect: row(401, 403, 403, 400, 400, 400) },
+  'POST /api/calculations/[id]/rerun': { path: '/api/calculations/999999/rerun', expect: row(401, 403, 403, 404, 404, 404) },
+  'GET /api/desk/officers': { path: '/api/desk/officers', expect: row(401, 403, 403, 200, 200, 200) },
+  'GET /api/desk/targets': { path: '/api/desk/targets', expect: row(401, 403, 403, 200, 200, 200) },
+  'PUT /api/desk/targets': { path: '/api/desk/targets', expect: row(401, 403, 403, 403, 400, 400) },
+  'POST /api/calc/u-value': { path: '/api/calc/u-value', expect: row(400, 400, 400, 400, 400, 400) },
+  'POST /api/calc/dew-point': { path: '/api/calc/dew-point', expect: row(400, 400, 400, 400, 400, 400) },
+  'POST /api/calc/thickness': { path: '/api/calc/thickness', expect: row(401, 403, 403, 400, 400, 400) },
+  'POST /api/calc/condensation': { path: '/api/calc/condensation', expect: row(401, 403, 403, 400, 400, 400) },
+  'POST /api/calc/condensation-year': { path: '/api/calc/condensation-year', expect: row(401, 403, 403, 400, 400, 400) },
+  'POST /api/calc/mould': { path: '/api/calc/mould', expect: row(401, 403, 403, 400, 400, 400) },
+  'POST /api/calc/bridging': { path: '/api/calc/bridging', expect: row(401, 403, 403, 400, 400, 400) },
+  'GET /api/library/search': { path: '/api/library/search?q=lintel', expect: row(200, 200, 200, 200, 200, 200) },
+  'GET /api/library/items/[code]': { path: '/api/library/items/D-WIN-01', expect: row(200, 200, 200, 200, 200, 200) },
+  'GET /api/library/items/[code]/sheet.pdf': { path: '/api/library/items/D-WIN-01/sheet.pdf', expect: row(200, 200, 200, 200, 200, 200) },
+  'GET /api/library/items/[code]/drawing.svg': { path: '/api/library/items/D-WIN-01/drawing.svg', expect: row(200, 200, 200, 200, 200, 200) },
+  'POST /api/library/items/[code]/supersede': { path: '/api/library/items/D-WIN-01/supersede', expect: row(401, 403, 403, 403, 400, 400) },
+  'POST /api/library/suggest': { path: '/api/library/suggest', expect: row(401, 403, 403, 400, 400, 400) },
 }
 
 /** 'server/api/admin/users/[id].patch.ts' → 'PATCH /api/admin/users/[id]' */
@@ -74,6 +100,17 @@ describe('access matrix: every route × every kind of caller', async () => {
     values.user = String(user!.id)
     values.org = String(user!.organisation_id)
     values.ref = enquiry!.ref
+    // An enquiry of specifier A's with one drawing, for the attachment route.
+    const upload = new FormData()
+    upload.append('data', JSON.stringify({
+      project: { name: 'Matrix check house', region: 'Cork', stage: 'planning' },
+      topic: 'other', subject: 'Access matrix drawing', question: 'An enquiry that carries one drawing for the access matrix.', priority: 'normal',
+    }))
+    upload.append('drawings', new Blob([tinyPng]), 'plan.png')
+    const created = await callForm('/api/enquiries', upload, { cookie: cookies.specA })
+    values.fileRef = created.body.ref
+    const file = await call(`/api/enquiries/${created.body.ref}`, { cookie: cookies.specA })
+    values.file = String(file.body.attachments[0].id)
   })
   afterAll(closeTestDb)
 

@@ -65,3 +65,17 @@ export async function signIn(email: string, password = DEMO_PASSWORD, headers: R
 export function currentYear(): number {
   return new Date().getUTCFullYear()
 }
+
+/** A multipart request, as the browser's forms send it (the boundary is set by fetch). */
+export async function callForm<T = any>(path: string, form: FormData, options: Omit<CallOptions, 'body'> = {}): Promise<ApiResponse<T>> { // eslint-disable-line @typescript-eslint/no-explicit-any
+  const headers: Record<string, string> = { accept: 'application/json', ...options.headers }
+  if (options.cookie) headers.cookie = options.cookie
+  const origin = options.origin === undefined ? new URL(url('/')).origin : options.origin
+  if (origin) headers.origin = origin
+  const res = await fetch(path, { method: options.method ?? 'POST', headers, body: form, redirect: 'manual' })
+  const text = await res.text()
+  let parsed: unknown = text
+  try { parsed = text ? JSON.parse(text) : null }
+  catch { /* not JSON */ }
+  return { status: res.status, body: parsed as T, headers: res.headers }
+}

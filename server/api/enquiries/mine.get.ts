@@ -5,9 +5,9 @@ export default defineEventHandler(async (event) => {
   const caller = await requireSpecifier(event)
   useDb()
   const rows = await Enquiry.findAll({
-    where: enquiryScope(caller),
+    where: { ...enquiryScope(caller), mergedIntoId: null },
     include: [{ model: Project, as: 'project', attributes: ['name'] }],
-    order: [['updatedAt', 'DESC']],
+    order: [['lastActivityAt', 'DESC']],
     limit: 200,
   })
   return {
@@ -18,7 +18,7 @@ export default defineEventHandler(async (event) => {
       status: e.status,
       project: (e as Enquiry & { project?: Project }).project?.name ?? null,
       receivedAt: e.receivedAt,
-      lastActivityAt: e.updatedAt,
+      lastActivityAt: e.lastActivityAt,
     })),
   }
 })
