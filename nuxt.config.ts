@@ -5,7 +5,7 @@ export default defineNuxtConfig({
   compatibilityDate: '2026-11-01',
   devtools: { enabled: false },
   telemetry: false,
-  modules: ['@nuxt/content', '@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils', '@nuxt/eslint'],
+  modules: ['@nuxt/content', '@pinia/nuxt', 'pinia-plugin-persistedstate/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils', '@nuxt/eslint'],
   css: ['~/assets/css/main.css'],
   app: {
     head: {
@@ -33,6 +33,9 @@ export default defineNuxtConfig({
     // point password-reset links at their own site).
     siteUrl: 'http://127.0.0.1:3000',
     mailPollMs: 3000,
+    // E-mail in: the loopback SMTP listener's port (0 = off) and the provider hook's shared secret ('' = off).
+    inboundSmtpPort: 0,
+    inboundSecret: '',
     trustProxy: false,
     session: {
       name: 'perpend-session',
