@@ -1,5 +1,6 @@
 import { quarantineQuerySchema } from '../../../shared/schemas/mail'
 import { Enquiry, InboundQuarantine, User } from '../../models'
+import type { QuarantineStatus } from '../../models/inbound-quarantine'
 
 /** Mail held for an officer's decision (or, with ?status=, what was decided), newest first. */
 export default defineEventHandler(async (event) => {
@@ -31,7 +32,7 @@ export default defineEventHandler(async (event) => {
       text: r.textBody.length > 20_000 ? `${r.textBody.slice(0, 20_000)}…` : r.textBody,
       attachments: r.attachmentList ? JSON.parse(r.attachmentList) as { name: string, contentType: string, size: number }[] : [],
       enquiry: r.enquiryId ? enquiryOf.get(r.enquiryId) ?? null : null,
-      status: r.status,
+      status: r.status as QuarantineStatus,
       decidedBy: r.decidedBy ? nameOf.get(r.decidedBy) ?? null : null,
       decidedAt: r.decidedAt,
     })),
