@@ -17,7 +17,10 @@ export default defineConfig({
           name: 'api',
           include: ['tests/api/**/*.test.ts'],
           environment: 'node',
-          testTimeout: 30_000,
+          // One server at a time: every server's outbox worker delivers any due mail in the shared test
+          // database to its own catcher, so parallel files would take each other's mail.
+          fileParallelism: false,
+          testTimeout: 60_000,
           hookTimeout: 120_000,
         },
       },

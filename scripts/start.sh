@@ -24,8 +24,9 @@ stop_all() {
 }
 trap stop_all INT TERM EXIT
 
-npx tsx scripts/mail-catcher.ts & pids+=($!)
-node .output/server/index.mjs & pids+=($!)
+node_modules/.bin/tsx scripts/mail-catcher.ts & pids+=($!)
+# The demo shows caught mail at /dev/mailbox and takes e-mailed answers on 127.0.0.1:2526.
+PERPEND_DEV_MAILBOX=1 NUXT_INBOUND_SMTP_PORT="${NUXT_INBOUND_SMTP_PORT:-2526}" node .output/server/index.mjs & pids+=($!)
 
 for _ in $(seq 1 60); do
   node -e "fetch(process.argv[1]).then(r => process.exit(r.ok ? 0 : 1), () => process.exit(1))" "http://$HOST:$PORT/api/health" && break

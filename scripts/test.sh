@@ -27,4 +27,7 @@ mkdir -p test-output
 echo "== lint"; npx eslint .
 echo "== typecheck"; npx nuxt typecheck
 echo "== build"; npx nuxt build > test-output/build.log 2>&1 || { tail -40 test-output/build.log; exit 1; }
-echo "== tests"; npx vitest run
+# One project after another: API and browser servers share the test database and its outbox.
+echo "== unit tests"; npx vitest run --project unit
+echo "== api tests"; npx vitest run --project api
+echo "== browser tests"; npx vitest run --project browser

@@ -130,11 +130,11 @@ describe('accounts and sign-in', async () => {
     await registerAndVerify(email)
     const signedIn = await call('/api/auth/sign-in', { body: { email, password: 'a-long-test-password' }, headers: freshAddress() })
     const cookie = sessionCookie(signedIn)
-    expect((await call('/api/enquiries/mine', { cookie })).status).toBe(200)
+    expect((await call('/api/my/enquiries', { cookie })).status).toBe(200)
     const userId = signedIn.body.user.id as number
 
     expect((await call(`/api/admin/users/${userId}`, { method: 'PATCH', cookie: adminCookie, body: { active: false } })).status).toBe(200)
-    const after = await call('/api/enquiries/mine', { cookie })
+    const after = await call('/api/my/enquiries', { cookie })
     expect(after.status).toBe(401)
     expect((await call('/api/auth/me', { cookie })).body.user).toBeNull()
 

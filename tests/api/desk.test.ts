@@ -25,7 +25,7 @@ const intake = (overrides: Record<string, unknown> = {}) => ({
 function form(data: unknown, files: { name: string, bytes: Buffer | string, type?: string }[] = [], field = 'drawings') {
   const f = new FormData()
   f.append('data', JSON.stringify(data))
-  for (const file of files) f.append(field, new Blob([file.bytes], { type: file.type ?? 'application/octet-stream' }), file.name)
+  for (const file of files) f.append(field, new Blob([typeof file.bytes === 'string' ? file.bytes : new Uint8Array(file.bytes)], { type: file.type ?? 'application/octet-stream' }), file.name)
   return f
 }
 

@@ -29,8 +29,9 @@ export default defineEventHandler(async (event) => {
       ref: enquiry.ref,
       subject: enquiry.subject,
       topic: enquiry.topic,
-      status: enquiry.status,
-      priority: enquiry.priority,
+      // Plain values: Sequelize's branded attribute types would otherwise reach the client's route types.
+      status: String(enquiry.status),
+      priority: String(enquiry.priority),
       question: enquiry.question,
       questionHtml: renderMarkdown(enquiry.question),
       requester: {
@@ -44,14 +45,14 @@ export default defineEventHandler(async (event) => {
       closedAt: enquiry.closedAt,
       lastActivityAt: enquiry.lastActivityAt,
       mergedInto: mergedInto?.ref ?? null,
-      assignee: assignee ? { id: assignee.id, name: assignee.name } : null,
+      assignee: assignee ? { id: Number(assignee.id), name: assignee.name } : null,
       clock: staff ? clockState(enquiry) : null,
       project: project
         ? { name: project.name, siteAddress: project.siteAddress, region: project.region, stage: project.stage, buildingType: project.buildingType, storeys: project.storeys, wallAreaM2: project.wallAreaM2 }
         : null,
     },
     messages: messages.map(m => ({
-      id: m.id,
+      id: Number(m.id),
       kind: m.kind,
       authorName: m.authorName,
       html: renderMarkdown(m.body),
@@ -60,7 +61,7 @@ export default defineEventHandler(async (event) => {
       createdAt: m.createdAt,
     })),
     attachments: attachments.map(a => ({
-      id: a.id,
+      id: Number(a.id),
       messageId: a.messageId,
       fileName: a.fileName,
       fileType: a.fileType,
@@ -71,6 +72,6 @@ export default defineEventHandler(async (event) => {
       createdAt: a.createdAt,
       url: `/api/enquiries/${enquiry.ref}/attachments/${a.id}`,
     })),
-    events: events.map(e => ({ id: e.id, kind: e.kind, from: e.fromValue, to: e.toValue, actor: e.actorUserId ? actorName.get(e.actorUserId) ?? null : null, createdAt: e.createdAt })),
+    events: events.map(e => ({ id: Number(e.id), kind: e.kind, from: e.fromValue, to: e.toValue, actor: e.actorUserId ? actorName.get(e.actorUserId) ?? null : null, createdAt: e.createdAt })),
   }
 })

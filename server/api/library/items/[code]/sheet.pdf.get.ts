@@ -10,7 +10,7 @@ export default defineEventHandler(async (event) => {
   setResponseHeaders(event, {
     'content-type': 'application/pdf',
     'content-disposition': `attachment; filename="${item.code}-rev-${item.revision}.pdf"`,
-    'content-length': String(pdf.length),
+    'content-length': pdf.length,
     'cache-control': 'no-store',
   })
   return pdf
