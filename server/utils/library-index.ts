@@ -1,3 +1,4 @@
+import { queryCollection } from '@nuxt/content/server'
 import type { H3Event } from 'h3'
 import { LibraryOverride } from '../models'
 import type { ItemStatus, JunctionType, LibraryCollection, RevisionEntry } from '../../shared/library/schemas'

@@ -1,3 +1,4 @@
+/// <reference path="../types/svg-to-pdfkit.d.ts" />
 import PDFDocument from 'pdfkit'
 import SVGtoPDF from 'svg-to-pdfkit'
 

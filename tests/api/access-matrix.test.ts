@@ -37,7 +37,7 @@ const matrix: Record<string, { path: string, expect: Record<Who, number> }> = {
   'GET /api/admin/organisations/[id]': { path: '/api/admin/organisations/{org}', expect: row(401, 403, 403, 403, 403, 200) },
   'POST /api/admin/organisations/[id]/merge': { path: '/api/admin/organisations/{org}/merge', expect: row(401, 403, 403, 403, 403, 400) },
   'GET /api/admin/audit': { path: '/api/admin/audit', expect: row(401, 403, 403, 403, 403, 200) },
-  'GET /api/enquiries/mine': { path: '/api/enquiries/mine', expect: row(401, 200, 200, 403, 403, 403) },
+  'GET /api/my/enquiries': { path: '/api/my/enquiries', expect: row(401, 200, 200, 403, 403, 403) },
   'GET /api/enquiries': { path: '/api/enquiries', expect: row(401, 403, 403, 200, 200, 200) },
   'POST /api/enquiries': { path: '/api/enquiries', expect: row(400, 400, 400, 400, 400, 400) },
   'GET /api/enquiries/[ref]': { path: '/api/enquiries/{ref}', expect: row(401, 200, 404, 200, 200, 200) },
@@ -63,6 +63,15 @@ const matrix: Record<string, { path: string, expect: Record<Who, number> }> = {
   'GET /api/library/items/[code]/sheet.pdf': { path: '/api/library/items/D-WIN-01/sheet.pdf', expect: row(200, 200, 200, 200, 200, 200) },
   'GET /api/library/items/[code]/drawing.svg': { path: '/api/library/items/D-WIN-01/drawing.svg', expect: row(200, 200, 200, 200, 200, 200) },
   'POST /api/library/items/[code]/supersede': { path: '/api/library/items/D-WIN-01/supersede', expect: row(401, 403, 403, 403, 400, 400) },
+  'GET /api/admin/outbox': { path: '/api/admin/outbox', expect: row(401, 403, 403, 403, 403, 200) },
+  'POST /api/admin/outbox/[id]/retry': { path: '/api/admin/outbox/999999/retry', expect: row(401, 403, 403, 403, 403, 404) },
+  'GET /api/desk/quarantine': { path: '/api/desk/quarantine', expect: row(401, 403, 403, 200, 200, 200) },
+  'POST /api/desk/quarantine/[id]': { path: '/api/desk/quarantine/999999', expect: row(401, 403, 403, 400, 400, 400) },
+  'GET /api/enquiries/[ref]/mail': { path: '/api/enquiries/{ref}/mail', expect: row(401, 403, 403, 200, 200, 200) },
+  // Authenticated by the mail provider's shared secret only, never by a session.
+  'POST /api/mail/inbound': { path: '/api/mail/inbound', expect: row(401, 401, 401, 401, 401, 401) },
+  // Off unless PERPEND_DEV_MAILBOX=1 (the demo start script); the test server runs without it.
+  'GET /api/dev/mailbox': { path: '/api/dev/mailbox', expect: row(404, 404, 404, 404, 404, 404) },
   'POST /api/library/suggest': { path: '/api/library/suggest', expect: row(401, 403, 403, 400, 400, 400) },
 }
 
