@@ -4,7 +4,9 @@ import { desk } from './0003-desk'
 import { calculations } from './0004-calculations'
 import { libraryStatus } from './0005-library-status'
 import { inboundMail } from './0006-inbound-mail'
+import { responsePacks } from './0007-response-packs'
+import { priceBook } from './0008-price-book'
 import type { Migration } from './types'
 
 /** Every migration in the order it runs. Append; never edit one that has landed. */
-export const migrations: Migration[] = [foundation, accounts, desk, calculations, libraryStatus, inboundMail]
+export const migrations: Migration[] = [foundation, accounts, desk, calculations, libraryStatus, inboundMail, responsePacks, priceBook]

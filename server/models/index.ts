@@ -9,13 +9,16 @@ import { InboundQuarantine } from './inbound-quarantine'
 import { LibraryOverride } from './library-override'
 import { Organisation } from './organisation'
 import { OutboxMessage } from './outbox-message'
+import { PriceItem } from './price-item'
 import { Project } from './project'
+import { Quotation } from './quotation'
+import { ResponsePack } from './response-pack'
 import { ServiceTarget } from './service-target'
 import { SignInAttempt } from './sign-in-attempt'
 import { User } from './user'
 import { UserToken } from './user-token'
 
-export { Attachment, AuditEvent, Calculation, Enquiry, EnquiryEvent, EnquiryMessage, InboundQuarantine, LibraryOverride, Organisation, OutboxMessage, Project, ServiceTarget, SignInAttempt, User, UserToken }
+export { Attachment, AuditEvent, Calculation, Enquiry, EnquiryEvent, EnquiryMessage, InboundQuarantine, LibraryOverride, Organisation, OutboxMessage, PriceItem, Project, Quotation, ResponsePack, ServiceTarget, SignInAttempt, User, UserToken }
 
 let initialised: Sequelize | null = null
 
@@ -37,6 +40,9 @@ export function initModels(sequelize: Sequelize) {
   Calculation.initModel(sequelize)
   LibraryOverride.initModel(sequelize)
   InboundQuarantine.initModel(sequelize)
+  ResponsePack.initModel(sequelize)
+  PriceItem.initModel(sequelize)
+  Quotation.initModel(sequelize)
 
   Organisation.hasMany(User, { foreignKey: 'organisationId', as: 'members' })
   User.belongsTo(Organisation, { foreignKey: 'organisationId', as: 'organisation' })
@@ -56,5 +62,12 @@ export function initModels(sequelize: Sequelize) {
   Enquiry.hasMany(Attachment, { foreignKey: 'enquiryId', as: 'attachments' })
   EnquiryMessage.hasMany(Attachment, { foreignKey: 'messageId', as: 'attachments' })
   InboundQuarantine.belongsTo(Enquiry, { foreignKey: 'enquiryId', as: 'enquiry' })
+  Enquiry.hasMany(ResponsePack, { foreignKey: 'enquiryId', as: 'packs' })
+  ResponsePack.belongsTo(User, { foreignKey: 'officerId', as: 'officer' })
+  ResponsePack.belongsTo(User, { foreignKey: 'checkerId', as: 'checker' })
+  ResponsePack.belongsTo(Attachment, { foreignKey: 'attachmentId', as: 'attachment' })
+  Enquiry.hasMany(Quotation, { foreignKey: 'enquiryId', as: 'quotations' })
+  Quotation.belongsTo(User, { foreignKey: 'createdBy', as: 'author' })
+  Quotation.belongsTo(Attachment, { foreignKey: 'attachmentId', as: 'attachment' })
   initialised = sequelize
 }

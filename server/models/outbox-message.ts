@@ -13,6 +13,8 @@ export class OutboxMessage extends Model<InferAttributes<OutboxMessage>, InferCr
   declare headers: string | null
   declare messageId: string
   declare enquiryId: ForeignKey<number> | null
+  /** JSON text of stored Attachment ids sent with the message (a response pack's PDF). */
+  declare attachmentIds: CreationOptional<string | null>
   declare status: CreationOptional<OutboxStatus>
   declare attempts: CreationOptional<number>
   declare nextAttemptAt: CreationOptional<Date>
@@ -31,6 +33,7 @@ export class OutboxMessage extends Model<InferAttributes<OutboxMessage>, InferCr
       headers: { type: DataTypes.TEXT, allowNull: true },
       messageId: { type: DataTypes.STRING(250), allowNull: false },
       enquiryId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+      attachmentIds: { type: DataTypes.TEXT, allowNull: true },
       status: { type: DataTypes.STRING(10), allowNull: false, defaultValue: 'pending' },
       attempts: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: false, defaultValue: 0 },
       nextAttemptAt: { type: DataTypes.DATE(3), allowNull: false, defaultValue: DataTypes.NOW },

@@ -42,7 +42,12 @@ export async function renderLibrarySheet(event: H3Event, item: LibraryItemView):
     runningHeadRight: 'Demo data: invented',
     footNote: `${item.code} rev ${item.revision}, ${item.revisionDate}. Printed ${new Date().toISOString().slice(0, 10)}. Check the library for the current revision.`,
   })
+  await drawLibrarySheet(event, pdf, item)
+  return pdf.finish()
+}
 
+/** Draws an item's sheet at the cursor of a PDF being written (its own file, or a page of a response pack). */
+export async function drawLibrarySheet(event: H3Event, pdf: PdfWriter, item: LibraryItemView): Promise<void> {
   // Title block: code and title on a tinted panel, the sheet's particulars beside them.
   const doc = pdf.doc
   const top = doc.y
@@ -111,5 +116,4 @@ export async function renderLibrarySheet(event: H3Event, item: LibraryItemView):
 
   doc.y += 6
   pdf.caution(sheetCaution, 'Caution')
-  return pdf.finish()
 }

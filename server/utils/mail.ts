@@ -3,7 +3,7 @@ import nodemailer from 'nodemailer'
 import type { Transporter } from 'nodemailer'
 import type { Transaction } from 'sequelize'
 import { QueryTypes } from 'sequelize'
-import { OutboxMessage } from '../models'
+import { Attachment, OutboxMessage } from '../models'
 
 /**
  * The one mail layer. A message is written to the outbox in the same transaction as the change that causes
@@ -19,6 +19,8 @@ export interface OutgoingMail {
   html?: string
   enquiryId?: number
   headers?: Record<string, string>
+  /** Stored attachments (their ids) to send with the message; read from the upload store at delivery. */
+  attachmentIds?: number[]
 }
 
 const MAX_ATTEMPTS = 8
@@ -45,6 +47,7 @@ export async function queueMail(mail: OutgoingMail, transaction?: Transaction): 
     headers: mail.headers ? JSON.stringify(mail.headers) : null,
     messageId: mail.headers?.['Message-ID'] ?? newMessageId(),
     enquiryId: mail.enquiryId ?? null,
+    attachmentIds: mail.attachmentIds?.length ? JSON.stringify(mail.attachmentIds) : null,
     lastError: null,
     sentAt: null,
   }, { transaction })
@@ -61,6 +64,19 @@ function getTransport(): Transporter {
     transportUrl = url
   }
   return transport
+}
+
+/** The files a message carries, from the upload store. A missing file fails the attempt, so it is retried, never sent without. */
+async function storedAttachments(message: OutboxMessage) {
+  if (!message.attachmentIds) return undefined
+  const ids = JSON.parse(message.attachmentIds) as number[]
+  const rows = await Attachment.findAll({ where: { id: ids } })
+  return Promise.all(ids.map(async (id) => {
+    const row = rows.find(r => r.id === id)
+    const bytes = row ? await useStorage('uploads').getItemRaw<Buffer>(row.storageKey) : null
+    if (!row || !bytes) throw new Error(`attachment ${id} is not in the upload store`)
+    return { filename: row.fileName, content: Buffer.from(bytes), contentType: row.contentType }
+  }))
 }
 
 let running: Promise<number> | null = null
@@ -98,6 +114,7 @@ async function deliverBatch(): Promise<number> {
         html: message.htmlBody ?? undefined,
         messageId: message.messageId,
         headers: message.headers ? JSON.parse(message.headers) as Record<string, string> : undefined,
+        attachments: await storedAttachments(message),
       })
       await message.update({ status: 'sent', sentAt: new Date(), attempts: message.attempts + 1, lastError: null })
       sent++
