@@ -2,6 +2,8 @@ import { z } from 'zod'
 import {
   bridgingHeatLoss,
   bridgingHeatLossSchema,
+  buildProgramme,
+  buildProgrammeInput,
   condensationAt,
   condensationAtSchema,
   condensationYear,
@@ -15,8 +17,12 @@ import {
   thicknessForTargetUSchema,
   uValue,
   uValueSchema,
+  wallQuantities,
+  wallQuantitiesInput,
 } from '../../shared/calc'
 import type { DewPointInput } from '../../shared/calc'
+import { wallStrength, wallStrengthSchema } from '../../shared/workbench/wall-strength'
+import { windAnchors, windAnchorsSchema } from '../../shared/workbench/wind-anchors'
 
 export const DEW_POINT_CAUTION
   = 'Indicative dew point of the air as entered, from the saturation-pressure formulae of EN ISO 13788:2012 '
@@ -51,6 +57,10 @@ export const calcMethods = {
   'condensation-year': method('Interstitial condensation, monthly (EN ISO 13788)', condensationYearSchema, condensationYear),
   'mould': method('Surface mould, fRsi (EN ISO 13788)', mouldRiskSchema, mouldRisk),
   'bridging': method('Junction heat loss and y-value', bridgingHeatLossSchema, bridgingHeatLoss),
+  'wind-anchors': method('Wind on the facade and ETICS anchors (EN 1991-1-4)', windAnchorsSchema, windAnchors),
+  'wall-strength': method('Vertical resistance of the wall (EN 1996-1-1 / EN 1996-3)', wallStrengthSchema, wallStrength),
+  'quantities': method('Material quantities for the wall and ETICS', wallQuantitiesInput, wallQuantities),
+  'programme': method('Masonry programme, single leaf against cavity', buildProgrammeInput, buildProgramme),
 } as const
 
 export type CalcMethod = keyof typeof calcMethods
