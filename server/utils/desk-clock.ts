@@ -26,7 +26,7 @@ export async function loadServiceTargets(transaction?: Transaction): Promise<Ser
 }
 
 /** Spans spent waiting on the requester, from the enquiry's status events (the last one may still be open). */
-export function pausesFromEvents(events: Pick<EnquiryEvent, 'kind' | 'fromValue' | 'toValue' | 'createdAt'>[]): Pause[] {
+export function pausesFromEvents(events: { kind: string, fromValue: string | null, toValue: string | null, createdAt: Date }[]): Pause[] {
   const pauses: Pause[] = []
   for (const e of [...events].sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime())) {
     if (e.kind !== 'status') continue

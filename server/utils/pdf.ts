@@ -1,3 +1,5 @@
+// The declaration of svg-to-pdfkit lives in server/types; the test tsconfig does not include that folder.
+// eslint-disable-next-line @typescript-eslint/triple-slash-reference
 /// <reference path="../types/svg-to-pdfkit.d.ts" />
 import PDFDocument from 'pdfkit'
 import SVGtoPDF from 'svg-to-pdfkit'
