@@ -6,7 +6,8 @@ import { libraryStatus } from './0005-library-status'
 import { inboundMail } from './0006-inbound-mail'
 import { responsePacks } from './0007-response-packs'
 import { priceBook } from './0008-price-book'
+import { turnaroundIndexes } from './0009-turnaround-indexes'
 import type { Migration } from './types'
 
 /** Every migration in the order it runs. Append; never edit one that has landed. */
-export const migrations: Migration[] = [foundation, accounts, desk, calculations, libraryStatus, inboundMail, responsePacks, priceBook]
+export const migrations: Migration[] = [foundation, accounts, desk, calculations, libraryStatus, inboundMail, responsePacks, priceBook, turnaroundIndexes]
