@@ -171,7 +171,10 @@ describe('the enquiry desk from intake to the requester\'s reply', async () => {
       return dark
     })
     expect(painted).toBeGreaterThan(100)
-    await expect(page.locator('img[alt="Drawing site-photo.png"]').evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).resolves.toBe(1)
+    // The image loads lazily: bring it into view, then wait for it.
+    const photo = page.locator('img[alt="Drawing site-photo.png"]')
+    await photo.scrollIntoViewIfNeeded()
+    await expect.poll(() => photo.evaluate((img: HTMLImageElement) => img.complete ? img.naturalWidth : 0), { timeout: 10_000 }).toBe(1)
 
     await page.getByLabel('Internal note').check()
     await page.getByLabel('Note', { exact: true }).fill('Looks like detail D-EAV-02; check the wall plate position before replying.')
