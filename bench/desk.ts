@@ -80,21 +80,18 @@ const cases = [
     name: 'newest first, all statuses',
     api: '/api/enquiries?pageSize=25',
     sql: [`${select} WHERE e.merged_into_id IS NULL ORDER BY e.received_at DESC, e.id DESC LIMIT 25`,
-      'SELECT COUNT(*) FROM enquiries WHERE merged_into_id IS NULL',
       'SELECT status, COUNT(id) FROM enquiries WHERE merged_into_id IS NULL GROUP BY status'],
   },
   {
     name: 'open work by due time',
     api: '/api/enquiries?status=received&status=triaged&status=in_hand&status=reopened&sort=due-asc&pageSize=25',
     sql: [`${select} WHERE e.merged_into_id IS NULL AND e.status IN ('received','triaged','in_hand','reopened') ORDER BY e.next_due_at IS NULL, e.next_due_at, e.id LIMIT 25`,
-      'SELECT COUNT(*) FROM enquiries WHERE merged_into_id IS NULL AND status IN (\'received\',\'triaged\',\'in_hand\',\'reopened\')',
       'SELECT status, COUNT(id) FROM enquiries WHERE merged_into_id IS NULL GROUP BY status'],
   },
   {
     name: 'mine, wind topic, free text',
     api: '/api/enquiries?assignee=me&topic=wind&q=anchor&pageSize=25',
     sql: [`${select} WHERE e.merged_into_id IS NULL AND e.assignee_id = ${me} AND e.topic IN ('wind') AND MATCH (e.subject, e.question, e.requester_name, e.requester_organisation) AGAINST ('+anchor*' IN BOOLEAN MODE) ORDER BY e.received_at DESC, e.id DESC LIMIT 25`,
-      `SELECT COUNT(*) FROM enquiries e WHERE e.merged_into_id IS NULL AND e.assignee_id = ${me} AND e.topic IN ('wind') AND MATCH (e.subject, e.question, e.requester_name, e.requester_organisation) AGAINST ('+anchor*' IN BOOLEAN MODE)`,
       `SELECT status, COUNT(id) FROM enquiries e WHERE e.merged_into_id IS NULL AND e.assignee_id = ${me} AND e.topic IN ('wind') AND MATCH (e.subject, e.question, e.requester_name, e.requester_organisation) AGAINST ('+anchor*' IN BOOLEAN MODE) GROUP BY status`],
   },
 ]
