@@ -37,7 +37,8 @@ cat <<MSG
   Perpend is running at http://$HOST:$PORT
   Demo sign-ins (password for all: $(npx tsx scripts/seed.ts --print-password)):
 $(npx tsx scripts/seed.ts --print-accounts | sed 's/^/    /')
-  Mail the product sends is caught locally (see $PERPEND_MAILBOX_DIR).
+  Mail the product sends is caught locally: read it at http://$HOST:$PORT/dev/mailbox.
+  E-mailed answers are taken on 127.0.0.1:${NUXT_INBOUND_SMTP_PORT:-2526}.
   Ctrl-C stops the server, the mail catcher and MariaDB.
 
 MSG
