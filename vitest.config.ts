@@ -1,7 +1,7 @@
 import { defineConfig } from 'vitest/config'
 
-// Three projects: pure modules in plain node, the built server against real MariaDB, and Chromium.
-// The api and browser projects reuse the one build made at the start of `npm test` (scripts/test.sh).
+// Pure modules in plain node; the built server against real MariaDB (api, security, faults); Chromium.
+// Every server project reuses the one build made at the start of `npm test` (scripts/test.sh).
 export default defineConfig({
   test: {
     projects: [
@@ -32,6 +32,27 @@ export default defineConfig({
           testTimeout: 90_000,
           hookTimeout: 120_000,
           fileParallelism: false,
+        },
+      },
+      {
+        test: {
+          name: 'security',
+          include: ['tests/security/**/*.test.ts'],
+          environment: 'node',
+          fileParallelism: false,
+          testTimeout: 120_000,
+          hookTimeout: 120_000,
+        },
+      },
+      {
+        // Faults stop and start their own MariaDB, mail catcher and servers; never beside another project.
+        test: {
+          name: 'faults',
+          include: ['tests/faults/**/*.test.ts'],
+          environment: 'node',
+          fileParallelism: false,
+          testTimeout: 180_000,
+          hookTimeout: 180_000,
         },
       },
     ],

@@ -31,3 +31,5 @@ echo "== build"; npx nuxt build > test-output/build.log 2>&1 || { tail -40 test-
 echo "== unit tests"; npx vitest run --project unit
 echo "== api tests"; npx vitest run --project api
 echo "== browser tests"; npx vitest run --project browser
+echo "== security tests"; npx vitest run --project security --passWithNoTests
+echo "== fault tests"; npx vitest run --project faults --passWithNoTests
