@@ -33,6 +33,9 @@ export default defineNuxtConfig({
     // point password-reset links at their own site).
     siteUrl: 'http://127.0.0.1:3000',
     mailPollMs: 3000,
+    // The waiting-on-you reminder: after this many working days of waiting, swept this often (0 = off).
+    reminderWorkingDays: 5,
+    reminderSweepMs: 300_000,
     // E-mail in: the loopback SMTP listener's port (0 = off) and the provider hook's shared secret ('' = off).
     inboundSmtpPort: 0,
     inboundSecret: '',

@@ -268,6 +268,8 @@ async function seedBulk(sequelize: Sequelize, count: number, ctx: { orgIds: Map<
         first_response_at: responded, answered_at: steps.find(s => s.to === 'answered')?.at ?? null, closed_at: steps.find(s => s.to === 'closed')?.at ?? null,
         merged_into_id: null, reply_token: randomBytes(16).toString('hex'),
         first_response_due_at: due.firstResponseDueAt, answer_due_at: due.answerDueAt, next_due_at: due.nextDueAt, waiting_since: due.waitingSince,
+        // The large set's waits count as already reminded, so a demo server does not mail hundreds at once.
+        reminded_at: due.waitingSince ? new Date(Math.min(now, due.waitingSince.getTime() + 7 * 86_400_000)) : null,
         last_activity_at: steps.at(-1)!.at, created_at: receivedAt, updated_at: steps.at(-1)!.at,
       })
     }

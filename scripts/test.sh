@@ -20,6 +20,8 @@ npx tsx scripts/migrate.ts
 npx tsx scripts/seed.ts
 # Test mail goes nowhere unless a test starts its own catcher and points the server at it.
 export NUXT_MAIL_URL="${PERPEND_TEST_MAIL_URL:-smtp://127.0.0.1:1}"
+# Reminder sweeps only where a test turns them on (they would mail the seeded waiting enquiries).
+export NUXT_REMINDER_SWEEP_MS=0
 export NUXT_UPLOAD_DIR="$PERPEND_VAR/test-uploads"
 rm -rf "$NUXT_UPLOAD_DIR" test-output
 mkdir -p test-output

@@ -1,7 +1,7 @@
 import { DataTypes, Model } from 'sequelize'
 import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize'
 
-export type EventKind = 'status' | 'assignee' | 'priority' | 'merged'
+export type EventKind = 'status' | 'assignee' | 'priority' | 'merged' | 'reminder'
 
 export class EnquiryEvent extends Model<InferAttributes<EnquiryEvent>, InferCreationAttributes<EnquiryEvent>> {
   declare id: CreationOptional<number>

@@ -29,6 +29,8 @@ export class Enquiry extends Model<InferAttributes<Enquiry>, InferCreationAttrib
   declare answerDueAt: Date | null
   declare nextDueAt: Date | null
   declare waitingSince: Date | null
+  /** When the requester was reminded during the current wait; cleared whenever a new wait starts. */
+  declare remindedAt: CreationOptional<Date | null>
   declare lastActivityAt: CreationOptional<Date>
   declare createdAt: CreationOptional<Date>
   declare updatedAt: CreationOptional<Date>
@@ -62,6 +64,7 @@ export class Enquiry extends Model<InferAttributes<Enquiry>, InferCreationAttrib
       answerDueAt: { type: DataTypes.DATE(3), allowNull: true },
       nextDueAt: { type: DataTypes.DATE(3), allowNull: true },
       waitingSince: { type: DataTypes.DATE(3), allowNull: true },
+      remindedAt: { type: DataTypes.DATE(3), allowNull: true },
       lastActivityAt: { type: DataTypes.DATE(3), allowNull: false, defaultValue: DataTypes.NOW },
       createdAt: DataTypes.DATE(3),
       updatedAt: DataTypes.DATE(3),

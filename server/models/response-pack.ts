@@ -26,6 +26,8 @@ export class ResponsePack extends Model<InferAttributes<ResponsePack>, InferCrea
   declare items: string
   /** JSON text of the calculation ids, in the order chosen. */
   declare calculationIds: string
+  /** JSON text of the quotation ids, in the order chosen (null on packs composed before quotations could go in). */
+  declare quotationIds: string | null
   /** JSON text of the caution kinds. */
   declare cautions: string
   declare createdAt: CreationOptional<Date>
@@ -44,6 +46,7 @@ export class ResponsePack extends Model<InferAttributes<ResponsePack>, InferCrea
       replyBody: { type: DataTypes.TEXT('medium'), allowNull: false },
       items: { type: DataTypes.TEXT, allowNull: false },
       calculationIds: { type: DataTypes.TEXT, allowNull: false },
+      quotationIds: { type: DataTypes.TEXT, allowNull: true },
       cautions: { type: DataTypes.TEXT, allowNull: false },
       createdAt: DataTypes.DATE(3),
       issuedAt: { type: DataTypes.DATE(3), allowNull: true },

@@ -26,7 +26,6 @@ const qty = (n: number) => (Number.isInteger(n) ? String(n) : n.toFixed(3).repla
  * discount, delivery and VAT, the validity date and the notice that the prices are invented.
  */
 export async function renderQuotationPdf(input: QuotationPdfInput): Promise<Buffer> {
-  const q = input.quote
   const pdf = await createPdf({
     title: `Quotation ${input.enquiryRef} revision ${input.revision}`,
     subject: `Quotation for ${input.subject}`,
@@ -34,6 +33,13 @@ export async function renderQuotationPdf(input: QuotationPdfInput): Promise<Buff
     runningHeadRight: 'Demo prices: invented',
     footNote: `${input.enquiryRef} quotation revision ${input.revision}, issued ${input.issuedOn}, valid until ${input.validUntil}.`,
   })
+  drawQuotation(pdf, input)
+  return pdf.finish()
+}
+
+/** The quotation's pages on a PDF being written: its own document, or a section of a response pack. */
+export function drawQuotation(pdf: PdfWriter, input: QuotationPdfInput) {
+  const q = input.quote
   const doc = pdf.doc
   pdf.heading(`Quotation ${input.enquiryRef}-${input.revision}`, 1)
   pdf.keyValues([
@@ -95,5 +101,4 @@ export async function renderQuotationPdf(input: QuotationPdfInput): Promise<Buff
   }
   doc.y += 6
   pdf.caution('Quantities are estimated from the wall area and common-practice consumption rates; the contractor checks them against the drawings before ordering. Anchor numbers are for pricing only: a chartered engineer confirms the anchor design for the site.', 'Quantities')
-  return pdf.finish()
 }

@@ -5,7 +5,10 @@ import type { Transaction } from 'sequelize'
 import { packCautionKinds, packCautionTexts, packNeedsCheck } from '../../shared/schemas/pack'
 import type { CautionKind, PackInput } from '../../shared/schemas/pack'
 import { libraryCollectionLabels } from '../../shared/library/inputs'
-import { Attachment, Calculation, EnquiryEvent, EnquiryMessage, OutboxMessage, Project, User } from '../models'
+import { formatCents } from '../../shared/calc/quote'
+import type { QuoteScope } from '../../shared/calc/quote'
+import { scopeLabels } from '../../shared/workbench/quotation'
+import { Attachment, Calculation, EnquiryEvent, EnquiryMessage, Organisation, Project, Quotation, User } from '../models'
 import type { Enquiry, ResponsePack } from '../models'
 import type { PinnedItem } from '../models/response-pack'
 import type { Caller } from './access'
@@ -22,6 +25,7 @@ const invalid = (message: string) => createError({ statusCode: 400, statusMessag
 export interface ResolvedPack {
   items: PinnedItem[]
   calculations: Calculation[]
+  quotations: Quotation[]
   cautions: CautionKind[]
   checkerId: number | null
   needsCheck: boolean
@@ -49,6 +53,14 @@ export async function resolvePackInput(event: H3Event, enquiry: Enquiry, caller:
     if (!calc) throw invalid(`calculationIds.${i}: Calculation ${id} is not saved to ${enquiry.ref}.`)
     return calc
   })
+  const foundQuotations = input.quotationIds.length
+    ? await Quotation.findAll({ where: { id: { [Op.in]: input.quotationIds }, enquiryId: enquiry.id }, transaction })
+    : []
+  const quotations = input.quotationIds.map((id, i) => {
+    const quotation = foundQuotations.find(q => q.id === id)
+    if (!quotation) throw invalid(`quotationIds.${i}: Quotation ${id} is not saved to ${enquiry.ref}.`)
+    return quotation
+  })
   let checkerId: number | null = null
   if (input.checkerId) {
     if (input.checkerId === caller.id) throw invalid('checkerId: The check is made by a second officer, not by the author.')
@@ -61,6 +73,7 @@ export async function resolvePackInput(event: H3Event, enquiry: Enquiry, caller:
   return {
     items,
     calculations,
+    quotations,
     cautions: packCautionKinds({ topic: enquiry.topic, calculationMethods: calculations.map(c => c.method), items: tagged }),
     checkerId,
     needsCheck: packNeedsCheck(enquiry.topic),
@@ -125,6 +138,7 @@ export interface PackDocument {
   checkerName: string | null
   items: PinnedItem[]
   calculations: Calculation[]
+  quotations: Quotation[]
   cautions: CautionKind[]
 }
 
@@ -164,6 +178,7 @@ export async function renderPackPdf(event: H3Event, pack: PackDocument, transact
   pdf.listItem('Our reply')
   pack.calculations.forEach((c, i) => pdf.listItem(`Calculation ${i + 1}: ${calcMethods[c.method as CalcMethod]?.label ?? c.method}`))
   for (const item of pack.items) pdf.listItem(`${item.code} rev ${item.revision}: ${item.title} (${libraryCollectionLabels[item.collection as keyof typeof libraryCollectionLabels] ?? item.collection})`)
+  for (const q of pack.quotations) pdf.listItem(`Quotation ${enquiry.ref}-${q.revision}: ${scopeLabels[q.scope as QuoteScope] ?? q.scope}, total € ${formatCents(q.totalCents)} including VAT, valid until ${q.validUntil}`)
   pdf.listItem('Cautions that apply to this answer')
   pdf.doc.y += 6
   for (const line of ['Yours sincerely,', pack.officerName, DEPARTMENT]) pdf.text(line, { size: 10.5 })
@@ -208,6 +223,18 @@ export async function renderPackPdf(event: H3Event, pack: PackDocument, transact
     await drawLibrarySheet(event, pdf, item)
   }
 
+  if (pack.quotations.length) {
+    const organisation = enquiry.organisationId ? await Organisation.findByPk(enquiry.organisationId, { attributes: ['name'], transaction }) : null
+    const quoters = await User.findAll({ where: { id: [...new Set(pack.quotations.map(q => q.createdBy))] }, attributes: ['id', 'name'], transaction })
+    for (const q of pack.quotations) {
+      pdf.doc.addPage()
+      drawQuotation(pdf, savedQuotationPdfInput(q, enquiry, {
+        organisation: organisation?.name ?? null,
+        officer: quoters.find(u => u.id === q.createdBy)?.name ?? 'Department staff',
+      }))
+    }
+  }
+
   pdf.doc.addPage()
   pdf.heading('Cautions', 1)
   pdf.paragraph('These cautions apply to everything in this pack. Please pass them on with it.', { color: pdfColours.muted, gap: 8 })
@@ -220,6 +247,7 @@ export function packContents(pack: ResponsePack) {
   return {
     items: JSON.parse(pack.items) as PinnedItem[],
     calculationIds: JSON.parse(pack.calculationIds) as number[],
+    quotationIds: JSON.parse(pack.quotationIds ?? '[]') as number[],
     cautions: JSON.parse(pack.cautions) as CautionKind[],
   }
 }
@@ -239,11 +267,15 @@ export async function issuePack(event: H3Event, pack: ResponsePack, enquiry: Enq
     ? await Calculation.findAll({ where: { id: contents.calculationIds, enquiryId: enquiry.id }, transaction })
     : []
   const ordered = contents.calculationIds.map(id => calculations.find(c => c.id === id)).filter((c): c is Calculation => !!c)
+  const quotations = contents.quotationIds.length
+    ? await Quotation.findAll({ where: { id: contents.quotationIds, enquiryId: enquiry.id }, transaction })
+    : []
+  const orderedQuotations = contents.quotationIds.map(id => quotations.find(q => q.id === id)).filter((q): q is Quotation => !!q)
   const now = new Date()
   const bytes = await renderPackPdf(event, {
     enquiry, revision: pack.revision, replyBody: pack.replyBody, issuedAt: now,
     officerName: officer?.name ?? 'Department staff', checkerName: checker?.name ?? null,
-    items: contents.items, calculations: ordered, cautions: contents.cautions,
+    items: contents.items, calculations: ordered, quotations: orderedQuotations, cautions: contents.cautions,
   }, transaction)
 
   const officerName = officer?.name ?? 'Department staff'
@@ -275,15 +307,7 @@ export async function issuePack(event: H3Event, pack: ResponsePack, enquiry: Enq
     body: `${pack.replyBody}\n\nOur response pack ${attachment.fileName} (revision ${pack.revision}) is attached.`,
     url: `${useRuntimeConfig().siteUrl}/my-enquiries/${enquiry.ref}`,
   })
-  const previous = await OutboxMessage.findAll({ where: { enquiryId: enquiry.id, status: { [Op.ne]: 'failed' } }, attributes: ['messageId'], order: [['id', 'ASC']], transaction })
-  const references = previous.map(p => p.messageId)
-  await queueMail({
-    kind: 'reply', to: enquiry.requesterEmail, enquiryId: enquiry.id, ...mail, attachmentIds: [attachment.id],
-    headers: {
-      'Reply-To': replyAddress(enquiry.replyToken!),
-      ...(references.length ? { 'In-Reply-To': references.at(-1)!, 'References': references.join(' ') } : {}),
-    },
-  }, transaction)
+  await queueEnquiryMail(enquiry, 'reply', mail, transaction, [attachment.id])
   await refreshDueTimes(enquiry, transaction)
   await enquiry.save({ transaction })
   stored.push(storageKey)
@@ -304,6 +328,7 @@ export function publicPack(pack: ResponsePack & { officer?: User | null, checker
     replyBody: pack.replyBody,
     items: contents.items,
     calculationIds: contents.calculationIds,
+    quotationIds: contents.quotationIds,
     cautions: contents.cautions,
     createdAt: pack.createdAt,
     issuedAt: pack.issuedAt,

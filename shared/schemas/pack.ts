@@ -20,9 +20,11 @@ export const packInputSchema = z.object({
     z.string().trim().transform(s => s.toUpperCase()).pipe(z.string().regex(anyCodePattern, 'not a library code (codes look like D-WIN-03)')),
   ).max(20, 'At most 20 library items in one pack').default([]),
   calculationIds: z.array(z.number().int().positive('not a calculation id')).max(20, 'At most 20 calculations in one pack').default([]),
+  quotationIds: z.array(z.number().int().positive('not a quotation id')).max(5, 'At most 5 quotations in one pack').default([]),
   checkerId: z.number().int().positive().nullable().optional(),
 }).refine(v => new Set(v.items).size === v.items.length, { path: ['items'], message: 'An item is listed twice' })
   .refine(v => new Set(v.calculationIds).size === v.calculationIds.length, { path: ['calculationIds'], message: 'A calculation is listed twice' })
+  .refine(v => new Set(v.quotationIds).size === v.quotationIds.length, { path: ['quotationIds'], message: 'A quotation is listed twice' })
 export type PackInput = z.infer<typeof packInputSchema>
 
 export const packIdParamsSchema = z.object({ id: z.coerce.number().int().positive('Not a valid pack id') })

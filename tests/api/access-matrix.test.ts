@@ -50,6 +50,7 @@ const matrix: Record<string, { path: string, expect: Record<Who, number> }> = {
   'POST /api/calculations/[id]/rerun': { path: '/api/calculations/999999/rerun', expect: row(401, 403, 403, 404, 404, 404) },
   'GET /api/desk/officers': { path: '/api/desk/officers', expect: row(401, 403, 403, 200, 200, 200) },
   'GET /api/desk/targets': { path: '/api/desk/targets', expect: row(401, 403, 403, 200, 200, 200) },
+  'GET /api/desk/stale-items': { path: '/api/desk/stale-items', expect: row(401, 403, 403, 200, 200, 200) },
   'PUT /api/desk/targets': { path: '/api/desk/targets', expect: row(401, 403, 403, 403, 400, 400) },
   'POST /api/calc/u-value': { path: '/api/calc/u-value', expect: row(400, 400, 400, 400, 400, 400) },
   'POST /api/calc/dew-point': { path: '/api/calc/dew-point', expect: row(400, 400, 400, 400, 400, 400) },

@@ -23,6 +23,7 @@ export default defineEventHandler(async (event) => {
   const actorIds = [...new Set(events.map(e => e.actorUserId).filter((id): id is number => !!id))]
   const actors = actorIds.length ? await User.findAll({ where: { id: actorIds }, attributes: ['id', 'name'] }) : []
   const actorName = new Map(actors.map(a => [a.id, a.name]))
+  const staleItems = staff ? await staleItemsOfEnquiry(event, enquiry.id, enquiry.ref) : []
 
   return {
     enquiry: {
@@ -73,5 +74,6 @@ export default defineEventHandler(async (event) => {
       url: `/api/enquiries/${enquiry.ref}/attachments/${a.id}`,
     })),
     events: events.map(e => ({ id: Number(e.id), kind: e.kind, from: e.fromValue, to: e.toValue, actor: e.actorUserId ? actorName.get(e.actorUserId) ?? null : null, createdAt: e.createdAt })),
+    staleItems,
   }
 })

@@ -3,7 +3,10 @@ import { enquiryStatusLabels } from '../../../shared/types/enquiry'
 import type { EnquiryStatus } from '../../../shared/types/enquiry'
 import { EnquiryEvent, User } from '../../models'
 
-/** Status, priority and assignment of an enquiry; each change is an event (who, when, from, to). */
+/**
+ * Status, priority and assignment of an enquiry; each change is an event (who, when, from, to). Closing an
+ * enquiry tells the requester, threaded onto the earlier mail.
+ */
 export default defineEventHandler(async (event) => {
   const caller = await requireStaff(event)
   const input = await readValidatedBody(event, parseWith(enquiryPatchSchema))
@@ -42,7 +45,12 @@ export default defineEventHandler(async (event) => {
       enquiry.status = input.status
       if (input.status === 'waiting_on_requester' || input.status === 'answered') enquiry.firstResponseAt ??= now
       if (input.status === 'answered') enquiry.answeredAt = now
-      if (input.status === 'closed') enquiry.closedAt = now
+      if (input.status === 'waiting_on_requester') enquiry.remindedAt = null
+      if (input.status === 'closed') {
+        enquiry.closedAt = now
+        const mail = closedMail({ ref: enquiry.ref, subject: enquiry.subject, name: enquiry.requesterName, officer: caller.name, url: requesterUrl(enquiry) })
+        await queueEnquiryMail(enquiry, 'closed', mail, transaction)
+      }
       if (input.status === 'reopened') {
         enquiry.answeredAt = null
         enquiry.closedAt = null

@@ -1,6 +1,5 @@
-import { Op } from 'sequelize'
 import { messageInputSchema, uploadLimits } from '../../../../shared/schemas/enquiry'
-import { Attachment, EnquiryMessage, OutboxMessage } from '../../../models'
+import { Attachment, EnquiryMessage } from '../../../models'
 import type { ReceivedForm } from '../../../utils/uploads'
 
 /**
@@ -66,15 +65,7 @@ export default defineEventHandler(async (event) => {
           ref: enquiry.ref, subject: enquiry.subject, name: enquiry.requesterName, officer: caller.name, body: input.body,
           url: `${useRuntimeConfig().siteUrl}/my-enquiries/${enquiry.ref}`,
         })
-        const previous = await OutboxMessage.findAll({ where: { enquiryId: enquiry.id, status: { [Op.ne]: 'failed' } }, attributes: ['messageId'], order: [['id', 'ASC']], transaction })
-        const references = previous.map(p => p.messageId)
-        await queueMail({
-          kind: 'reply', to: enquiry.requesterEmail, enquiryId: enquiry.id, ...mail,
-          headers: {
-            'Reply-To': replyAddress(enquiry.replyToken!),
-            ...(references.length ? { 'In-Reply-To': references.at(-1)!, 'References': references.join(' ') } : {}),
-          },
-        }, transaction)
+        await queueEnquiryMail(enquiry, 'reply', mail, transaction)
       }
       enquiry.lastActivityAt = now
       await refreshDueTimes(enquiry, transaction)

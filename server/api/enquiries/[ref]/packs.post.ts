@@ -35,6 +35,7 @@ export default defineEventHandler(async (event) => {
         replyBody: input.replyBody,
         items: JSON.stringify(resolved.items),
         calculationIds: JSON.stringify(resolved.calculations.map(c => c.id)),
+        quotationIds: JSON.stringify(resolved.quotations.map(q => q.id)),
         cautions: JSON.stringify(resolved.cautions),
         createdAt: new Date(),
         issuedAt: null,
@@ -49,7 +50,7 @@ export default defineEventHandler(async (event) => {
         action: mustWait ? 'pack.composed' : 'pack.issued',
         subjectType: 'enquiry',
         subjectId: enquiry.id,
-        detail: { packId: pack.id, revision, items: resolved.items.map(i => `${i.code} rev ${i.revision}`), calculationIds: resolved.calculations.map(c => c.id) },
+        detail: { packId: pack.id, revision, items: resolved.items.map(i => `${i.code} rev ${i.revision}`), calculationIds: resolved.calculations.map(c => c.id), quotationIds: resolved.quotations.map(q => q.id) },
       }, transaction)
       return { pack, ref: enquiry.ref }
     })
