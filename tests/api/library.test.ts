@@ -1,27 +1,16 @@
 import { fetch } from '@nuxt/test-utils/e2e'
-import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs'
 import { QueryTypes } from 'sequelize'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { XMLValidator } from 'fast-xml-parser'
 import { call, demo, signIn } from '../support/api'
 import { closeTestDb, testDb } from '../support/db'
 import { useBuiltServer } from '../support/server'
+import { pdfText } from '../support/pdf'
 
 interface Summary { code: string, collection: string, title: string, status: string, supersededBy: string | null, junctionType: string | null }
 
 const codes = (results: Summary[]) => results.map(r => r.code)
 const search = async (query: string) => (await call<{ total: number, results: Summary[] }>(`/api/library/search?${query}`)).body
-
-/** All the text of a PDF, page by page, as pdf.js reads it. */
-async function pdfText(bytes: Uint8Array): Promise<{ pages: number, text: string }> {
-  const doc = await getDocument({ data: bytes, useSystemFonts: false }).promise
-  let text = ''
-  for (let i = 1; i <= doc.numPages; i++) {
-    const content = await (await doc.getPage(i)).getTextContent()
-    text += `${content.items.map(item => ('str' in item ? item.str : '')).join(' ')}\n`
-  }
-  return { pages: doc.numPages, text: text.replace(/\s+/g, ' ') }
-}
 
 describe('detail library API', async () => {
   await useBuiltServer()

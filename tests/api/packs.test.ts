@@ -3,7 +3,6 @@ import { createHash } from 'node:crypto'
 import { mkdirSync, readFileSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { fetch } from '@nuxt/test-utils/e2e'
-import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs'
 import { QueryTypes } from 'sequelize'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { startMailCatcher } from '../../scripts/mail-catcher'
@@ -13,6 +12,7 @@ import { packCautionTexts } from '../../shared/schemas/pack'
 import { call, demo, signIn } from '../support/api'
 import { closeTestDb, testDb } from '../support/db'
 import { rootDir, useBuiltServer } from '../support/server'
+import { pdfText } from '../support/pdf'
 
 const catcher = await startMailCatcher({ port: 0 })
 const sha256 = (b: Uint8Array) => createHash('sha256').update(b).digest('hex')
@@ -20,17 +20,6 @@ const outDir = join(rootDir, 'test-output', 'packs')
 
 async function rows<T extends object>(sql: string, replacements: unknown[] = []): Promise<T[]> {
   return testDb().query<T>(sql, { replacements, type: QueryTypes.SELECT })
-}
-
-/** All the text of a PDF as pdf.js reads it, whitespace collapsed. */
-async function pdfText(bytes: Uint8Array): Promise<{ pages: number, text: string }> {
-  const doc = await getDocument({ data: new Uint8Array(bytes), useSystemFonts: false }).promise
-  let text = ''
-  for (let i = 1; i <= doc.numPages; i++) {
-    const content = await (await doc.getPage(i)).getTextContent()
-    text += `${content.items.map(item => ('str' in item ? item.str : '')).join(' ')}\n`
-  }
-  return { pages: doc.numPages, text: text.replace(/\s+/g, ' ') }
 }
 
 const block = DEMO_MATERIALS.find(m => m.id === 'corrstone-block-215')!

@@ -1,5 +1,4 @@
 import { fetch } from '@nuxt/test-utils/e2e'
-import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { formatCents } from '../../shared/calc'
 import { buildQuotation } from '../../shared/workbench/quotation'
@@ -9,6 +8,7 @@ import type { WindAnchorsInput } from '../../shared/workbench/wind-anchors'
 import type { WallStrengthInput } from '../../shared/workbench/wall-strength'
 import { call, currentYear, demo, signIn } from '../support/api'
 import { useBuiltServer } from '../support/server'
+import { pdfText } from '../support/pdf'
 
 const year = currentYear()
 const ref3 = `TQ-${year}-0003` // seeded: Quay Street apartments, wind topic, Keel Structural (specifier B)
@@ -29,16 +29,6 @@ const quantities = {
   externalCorners_m: 60, system: { block: { length_mm: 440, height_mm: 215, thickness_mm: 300 } },
 }
 const programme = { area_m2: 480, storeys: 5, gangs: 2 }
-
-async function pdfText(bytes: Uint8Array): Promise<string> {
-  const doc = await getDocument({ data: bytes }).promise
-  let text = ''
-  for (let i = 1; i <= doc.numPages; i++) {
-    const content = await (await doc.getPage(i)).getTextContent()
-    text += `${content.items.map(item => ('str' in item ? item.str : '')).join(' ')}\n`
-  }
-  return text.replace(/\s+/g, ' ')
-}
 
 async function download(path: string, cookie: string): Promise<Uint8Array> {
   const res = await fetch(path, { headers: { cookie } })
@@ -263,7 +253,7 @@ describe('workbench part 2 and quotation API', async () => {
       expect([...kinds].sort()).toEqual(['delivery', 'labour', 'material'])
 
       const pdfA = await download(a.body.quotation.pdfUrl, officer)
-      const text = await pdfText(pdfA.slice())
+      const text = (await pdfText(pdfA.slice())).text
       const blocks = a.body.quotation.lines.find((l: { code: string }) => l.code === 'blocks')
       expect(text).toContain('Corrstone lightweight-aggregate block')
       expect(text).toContain(formatCents(blocks.amount))

@@ -1,20 +1,10 @@
 import { readFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { url } from '@nuxt/test-utils/e2e'
-import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { launchChromium, screenshotDir } from '../support/chromium'
 import { useBuiltServer } from '../support/server'
-
-async function pdfText(bytes: Uint8Array): Promise<string> {
-  const doc = await getDocument({ data: bytes }).promise
-  let text = ''
-  for (let i = 1; i <= doc.numPages; i++) {
-    const content = await (await doc.getPage(i)).getTextContent()
-    text += `${content.items.map(item => ('str' in item ? item.str : '')).join(' ')}\n`
-  }
-  return text.replace(/\s+/g, ' ')
-}
+import { pdfText } from '../support/pdf'
 
 describe('detail library in Chromium', async () => {
   await useBuiltServer()
@@ -60,7 +50,7 @@ describe('detail library in Chromium', async () => {
     const path = await download.path()
     const bytes = new Uint8Array(readFileSync(path))
     expect(new TextDecoder().decode(bytes.slice(0, 5))).toBe('%PDF-')
-    const text = await pdfText(bytes)
+    const text = (await pdfText(bytes)).text
     expect(text).toContain('Window jamb, frame at block face')
     expect(text).toContain('D-WIN-03')
   })

@@ -1,21 +1,11 @@
 import { join } from 'node:path'
 import { fetch, url } from '@nuxt/test-utils/e2e'
-import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { launchChromium, screenshotDir } from '../support/chromium'
 import { useBuiltServer } from '../support/server'
+import { pdfText } from '../support/pdf'
 
 const ref3 = `TQ-${new Date().getUTCFullYear()}-0003` // seeded: the wind enquiry of Keel Structural
-
-async function pdfText(bytes: Uint8Array): Promise<string> {
-  const doc = await getDocument({ data: bytes }).promise
-  let text = ''
-  for (let i = 1; i <= doc.numPages; i++) {
-    const content = await (await doc.getPage(i)).getTextContent()
-    text += `${content.items.map(item => ('str' in item ? item.str : '')).join(' ')}\n`
-  }
-  return text.replace(/\s+/g, ' ')
-}
 
 describe('workbench part 2 in Chromium', async () => {
   await useBuiltServer()
@@ -97,7 +87,7 @@ describe('workbench part 2 in Chromium', async () => {
     const session = (await browser.context.cookies()).find(c => c.name === 'perpend-session')!
     const pdf = await fetch(href!, { headers: { cookie: `${session.name}=${session.value}` } })
     expect(pdf.status).toBe(200)
-    const text = await pdfText(new Uint8Array(await pdf.arrayBuffer()))
+    const text = (await pdfText(new Uint8Array(await pdf.arrayBuffer()))).text
     expect(text).toContain('Corrstone lightweight-aggregate block')
     expect(text).toContain('Installing the ETICS')
     expect(text).toContain(`Total ${total}`)
