@@ -18,8 +18,12 @@ describe('home page in Chromium', async () => {
     expect(response?.status()).toBe(200)
 
     await expect(page.locator('header').getByText('Perpend', { exact: true }).count()).resolves.toBe(1)
-    for (const label of ['Detail library', 'Workbench', 'Desk', 'Turnaround', 'Sign in']) {
+    for (const label of ['Ask a question', 'Detail library', 'Workbench', 'Sign in']) {
       expect(await page.locator('header nav').getByText(label, { exact: true }).count()).toBe(1)
+    }
+    // The desk and the manager's view are not offered to the public.
+    for (const label of ['Desk', 'Turnaround']) {
+      expect(await page.locator('header nav').getByText(label, { exact: true }).count()).toBe(0)
     }
     expect(await page.locator('footer').innerText()).toContain('invented')
 
@@ -38,11 +42,30 @@ describe('home page in Chromium', async () => {
 
   it('leads every navigation link to a page that answers', async () => {
     const page = await browser.context.newPage()
-    for (const path of ['/library', '/workbench', '/desk', '/turnaround', '/sign-in']) {
+    for (const path of ['/enquire', '/library', '/workbench', '/sign-in']) {
       const response = await page.goto(url(path))
       expect(response?.status(), path).toBe(200)
       expect(await page.locator('h1').count(), path).toBeGreaterThan(0)
     }
+  })
+
+  it.each([
+    { email: 'officer@corrstone.example', shown: ['Desk'], hidden: ['Turnaround'] },
+    { email: 'manager@corrstone.example', shown: ['Desk', 'Turnaround'], hidden: [] },
+    { email: 'architect@hallorans.example', shown: ['My enquiries'], hidden: ['Desk', 'Turnaround'] },
+  ])('offers $email the parts of the product their role opens', async ({ email, shown, hidden }) => {
+    await browser.context.clearCookies()
+    const page = await browser.context.newPage()
+    await page.goto(url('/sign-in'), { waitUntil: 'networkidle' })
+    await page.getByLabel('E-mail').fill(email)
+    await page.getByLabel('Password').fill('corrstone-demo-2026')
+    await page.getByRole('main').getByRole('button', { name: 'Sign in' }).click()
+    await page.getByTestId('signed-in-as').waitFor()
+    const nav = page.locator('header nav')
+    for (const label of shown) await nav.getByRole('link', { name: label, exact: true }).waitFor()
+    for (const label of hidden) expect(await nav.getByText(label, { exact: true }).count(), label).toBe(0)
+    await page.close()
+    await browser.context.clearCookies()
   })
 
   it('collapses the navigation behind a menu button on a phone', async () => {
