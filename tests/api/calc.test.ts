@@ -1,28 +1,16 @@
 import { $fetch, fetch, url } from '@nuxt/test-utils/e2e'
 import { describe, expect, it } from 'vitest'
-import { DEMO_MATERIALS, ENGINE_VERSION, jointFraction, uValue } from '../../shared/calc'
+import { ENGINE_VERSION, uValue } from '../../shared/calc'
 import type { UValueInput } from '../../shared/calc'
 import { useBuiltServer } from '../support/server'
+import { demoWall as baseWall } from '../support/walls'
 
 const DEMO_PASSWORD = 'corrstone-demo-2026'
 const year = new Date().getUTCFullYear()
 const ref1 = `TQ-${year}-0001` // seeded: Glenmore Terrace, Halloran Reid Architects
 
-const block = DEMO_MATERIALS.find(m => m.id === 'corrstone-block-215')!
-const mortar = DEMO_MATERIALS.find(m => m.id === 'corrstone-thin-joint-mortar')!
-const eps = DEMO_MATERIALS.find(m => m.id === 'corrstone-eps-graphite')!
-
-/** The demo wall: plaster, 215 mm block on 3 mm thin joints, 150 mm graphite EPS, base coat and finish. */
-const demoWall: UValueInput = {
-  layers: [
-    { name: 'Gypsum plaster', thickness_mm: 13, lambda: 0.57 },
-    { name: block.name, thickness_mm: 215, lambda: block.lambda, bridge: { lambda: mortar.lambda, fraction: jointFraction({ unitLength_mm: 440, unitHeight_mm: 215, joint_mm: 3 }) } },
-    { name: eps.name, thickness_mm: 150, lambda: eps.lambda },
-    { name: 'Base coat', thickness_mm: 5, lambda: 0.8 },
-    { name: 'Silicone finish', thickness_mm: 1.5, lambda: 0.7 },
-  ],
-  pointBridges: [{ perM2: 6, chi: 0.002 }],
-}
+/** The demo wall with six point bridges per m² (anchors through the insulation). */
+const demoWall: UValueInput = { ...baseWall, pointBridges: [{ perM2: 6, chi: 0.002 }] }
 
 function json(body: unknown, cookie?: string): RequestInit {
   return {

@@ -7,11 +7,11 @@ import { QueryTypes } from 'sequelize'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { startMailCatcher } from '../../scripts/mail-catcher'
 import type { CaughtMail } from '../../scripts/mail-catcher'
-import { DEMO_MATERIALS, jointFraction } from '../../shared/calc'
 import { packCautionTexts } from '../../shared/schemas/pack'
 import { call, demo, signIn } from '../support/api'
 import { closeTestDb, testDb } from '../support/db'
 import { rootDir, useBuiltServer } from '../support/server'
+import { demoWall } from '../support/walls'
 import { pdfText } from '../support/pdf'
 
 const catcher = await startMailCatcher({ port: 0 })
@@ -20,20 +20,6 @@ const outDir = join(rootDir, 'test-output', 'packs')
 
 async function rows<T extends object>(sql: string, replacements: unknown[] = []): Promise<T[]> {
   return testDb().query<T>(sql, { replacements, type: QueryTypes.SELECT })
-}
-
-const block = DEMO_MATERIALS.find(m => m.id === 'corrstone-block-215')!
-const mortar = DEMO_MATERIALS.find(m => m.id === 'corrstone-thin-joint-mortar')!
-const eps = DEMO_MATERIALS.find(m => m.id === 'corrstone-eps-graphite')!
-// The demo wall of tests/api/calc.test.ts: plaster, 215 mm block on thin joints, 150 mm graphite EPS, render.
-const demoWall = {
-  layers: [
-    { name: 'Gypsum plaster', thickness_mm: 13, lambda: 0.57 },
-    { name: block.name, thickness_mm: 215, lambda: block.lambda, bridge: { lambda: mortar.lambda, fraction: jointFraction({ unitLength_mm: 440, unitHeight_mm: 215, joint_mm: 3 }) } },
-    { name: eps.name, thickness_mm: 150, lambda: eps.lambda },
-    { name: 'Base coat', thickness_mm: 5, lambda: 0.8 },
-    { name: 'Silicone finish', thickness_mm: 1.5, lambda: 0.7 },
-  ],
 }
 
 const intake = (topic: string, subject: string) => ({

@@ -5,11 +5,11 @@ import { fetch, url } from '@nuxt/test-utils/e2e'
 import type { Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { startMailCatcher } from '../../scripts/mail-catcher'
-import { DEMO_MATERIALS, jointFraction } from '../../shared/calc'
 import { call, DEMO_PASSWORD, demo, signIn as apiSignIn } from '../support/api'
 import { launchChromium, screenshotDir } from '../support/chromium'
 import { pdfText } from '../support/pdf'
 import { useBuiltServer } from '../support/server'
+import { demoWall } from '../support/walls'
 
 /**
  * A reply goes out as a response pack: the officer composes it on the enquiry file with one detail sheet and
@@ -20,18 +20,6 @@ import { useBuiltServer } from '../support/server'
 const mailboxDir = mkdtempSync(join(tmpdir(), 'perpend-mailbox-'))
 const catcher = await startMailCatcher({ port: 0, dir: mailboxDir })
 
-const block = DEMO_MATERIALS.find(m => m.id === 'corrstone-block-215')!
-const mortar = DEMO_MATERIALS.find(m => m.id === 'corrstone-thin-joint-mortar')!
-const eps = DEMO_MATERIALS.find(m => m.id === 'corrstone-eps-graphite')!
-const wall = {
-  layers: [
-    { name: 'Gypsum plaster', thickness_mm: 13, lambda: 0.57 },
-    { name: block.name, thickness_mm: 215, lambda: block.lambda, bridge: { lambda: mortar.lambda, fraction: jointFraction({ unitLength_mm: 440, unitHeight_mm: 215, joint_mm: 3 }) } },
-    { name: eps.name, thickness_mm: 150, lambda: eps.lambda },
-    { name: 'Base coat', thickness_mm: 5, lambda: 0.8 },
-    { name: 'Silicone finish', thickness_mm: 1.5, lambda: 0.7 },
-  ],
-}
 
 async function signIn(page: Page, email: string) {
   await page.goto(url('/sign-in'), { waitUntil: 'networkidle' })
@@ -60,7 +48,7 @@ describe('a response pack from the composer to the requester and the mailbox', a
     expect(created.status, JSON.stringify(created.body)).toBe(201)
     ref = created.body.ref
     expect((await call(`/api/enquiries/${ref}`, { method: 'PATCH', cookie: officer, body: { status: 'in_hand' } })).status).toBe(200)
-    const calc = await call(`/api/enquiries/${ref}/calculations`, { cookie: officer, body: { method: 'u-value', inputs: wall } })
+    const calc = await call(`/api/enquiries/${ref}/calculations`, { cookie: officer, body: { method: 'u-value', inputs: demoWall } })
     expect(calc.status, JSON.stringify(calc.body)).toBe(201)
     calcId = calc.body.calculation.id
   })
