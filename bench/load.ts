@@ -1,10 +1,14 @@
 // Throughput and latency under load: 50 connections for 30 s per route against the built server and the
 // 100,000-enquiry database, beside a minimal h3 route hammered the same way (the ceiling of this machine and
 // this HTTP stack), with the server's resident memory sampled throughout.
-//   npx tsx bench/load.ts [--seconds 30] [--connections 50]
+//   npx tsx bench/load.ts [--seconds 30] [--connections 50] [--passes 2]
+// Memory: the server's RSS is read from /proc before, during and after. Node keeps the heap it grew to, so
+// the first pass over the routes shows the working set being reached; growth from the end of one pass to
+// the end of the next is what would show a leak.
 // Every route must finish with zero errors and zero non-2xx answers; the bench exits 1 otherwise.
 import { spawn } from 'node:child_process'
 import { readFileSync } from 'node:fs'
+import { loadavg } from 'node:os'
 import { fileURLToPath } from 'node:url'
 import autocannon from 'autocannon'
 import * as mariadb from 'mariadb'
@@ -33,6 +37,7 @@ interface RouteCase {
 
 interface Measured {
   name: string
+  pass: number
   requests: number
   rps: number
   p50: number
@@ -50,7 +55,7 @@ function rssMb(pid: number): number {
   return Number(/VmRSS:\s+(\d+) kB/.exec(status)![1]) / 1024
 }
 
-async function hammer(c: RouteCase, seconds: number, connections: number): Promise<Omit<Measured, 'rssAfterMb' | 'name'>> {
+async function hammer(c: RouteCase, seconds: number, connections: number): Promise<Omit<Measured, 'rssAfterMb' | 'name' | 'pass'>> {
   const latencies: number[] = []
   const statuses: Record<string, number> = {}
   const instance = autocannon({
@@ -95,6 +100,7 @@ async function startCeiling(): Promise<{ base: string, stop: () => void }> {
 async function main() {
   const seconds = arg('--seconds', 30)
   const connections = arg('--connections', 50)
+  const passes = arg('--passes', 2)
   const count = await ensureBenchData()
   // Behind a load balancer every caller brings its own address; the bench does the same through
   // X-Forwarded-For so that the public calculator's per-address limit (60 a minute) meters callers, not the bench.
@@ -149,26 +155,32 @@ async function main() {
     rssSamples.length = 0
 
     const measured: Measured[] = []
-    for (const c of cases) {
-      const r = await hammer(c, seconds, connections)
-      measured.push({ name: c.name, ...r, rssAfterMb: c.base === base ? rssMb(pid) : Number.NaN })
+    const rssAfterPass: number[] = []
+    for (let pass = 1; pass <= passes; pass++) {
+      for (const c of cases) {
+        const r = await hammer(c, seconds, connections)
+        measured.push({ name: c.name, pass, ...r, rssAfterMb: c.base === base ? rssMb(pid) : Number.NaN })
+      }
+      rssAfterPass.push(rssMb(pid))
     }
     await new Promise(r => setTimeout(r, 10_000))
     const rssIdle = rssMb(pid)
     const rssPeak = Math.max(...rssSamples)
 
-    const top = measured[0]!.rps
-    console.log(`\n${connections} connections, ${seconds} s per route; ${count.toLocaleString('en-IE')} enquiries; latency in ms\n`)
-    console.log('route'.padEnd(28), 'requests'.padStart(9), 'req/s'.padStart(8), 'of ceiling'.padStart(11), 'p50'.padStart(7), 'p95'.padStart(7), 'p99'.padStart(7), 'errors'.padStart(7), 'non-2xx'.padStart(8), 'RSS after'.padStart(10))
+    console.log(`\n${connections} connections, ${seconds} s per route, ${passes} pass(es); ${count.toLocaleString('en-IE')} enquiries; load average ${loadavg().map(l => l.toFixed(1)).join(' ')} on ${(await import('node:os')).cpus().length} CPUs; latency in ms\n`)
+    console.log('pass'.padEnd(5), 'route'.padEnd(28), 'requests'.padStart(9), 'req/s'.padStart(8), 'of ceiling'.padStart(11), 'p50'.padStart(7), 'p95'.padStart(7), 'p99'.padStart(7), 'errors'.padStart(7), 'non-2xx'.padStart(8), 'RSS after'.padStart(10))
     for (const m of measured) {
+      const top = measured.find(x => x.pass === m.pass)!.rps
       console.log(
-        m.name.padEnd(28), String(m.requests).padStart(9), m.rps.toFixed(0).padStart(8), `${(100 * m.rps / top).toFixed(1)} %`.padStart(11),
+        String(m.pass).padEnd(5), m.name.padEnd(28), String(m.requests).padStart(9), m.rps.toFixed(0).padStart(8), `${(100 * m.rps / top).toFixed(1)} %`.padStart(11),
         m.p50.toFixed(0).padStart(7), m.p95.toFixed(0).padStart(7), m.p99.toFixed(0).padStart(7),
         String(m.errors + m.timeouts).padStart(7), String(m.non2xx).padStart(8),
         (Number.isNaN(m.rssAfterMb) ? '—' : `${m.rssAfterMb.toFixed(0)} MB`).padStart(10),
       )
     }
-    console.log(`\nServer RSS: ${rssStart.toFixed(0)} MB at start, ${rssWarm.toFixed(0)} MB after warm-up, peak ${rssPeak.toFixed(0)} MB during the runs, ${rssIdle.toFixed(0)} MB after 10 s idle (${(rssIdle - rssWarm >= 0 ? '+' : '')}${(rssIdle - rssWarm).toFixed(0)} MB over the measured runs).`)
+    const signed = (mb: number) => `${mb >= 0 ? '+' : ''}${mb.toFixed(0)} MB`
+    console.log(`\nServer RSS: ${rssStart.toFixed(0)} MB at start, ${rssWarm.toFixed(0)} MB after warm-up, peak ${rssPeak.toFixed(0)} MB during the runs, ${rssIdle.toFixed(0)} MB after 10 s idle.`)
+    console.log(`RSS at the end of each pass: ${rssAfterPass.map(r => `${r.toFixed(0)} MB`).join(', ')}${passes > 1 ? ` (${signed(rssAfterPass.at(-1)! - rssAfterPass[0]!)} from the first pass to the last)` : ''}.`)
     const failed = measured.filter(m => m.errors || m.timeouts || m.non2xx)
     for (const m of failed) console.log(`FAILED ${m.name}: ${m.errors} errors, ${m.timeouts} timeouts, statuses ${JSON.stringify(m.statuses)}`)
     console.log(failed.length ? '' : 'Every request of every route answered 2xx.')

@@ -8,6 +8,7 @@ import type { H3Error } from 'h3'
  */
 export default defineNitroPlugin((nitroApp) => {
   nitroApp.hooks.hook('error', (error, { event }) => {
-    if (event && isDatabaseOutage(error)) answerAsDatabaseOutage(error as H3Error, event)
+    const failure = event ? databaseFailure(error) : null
+    if (event && failure) answerAsDatabaseOutage(error as H3Error, event, failure)
   })
 })
