@@ -36,7 +36,7 @@ export async function time(fn: () => Promise<unknown>, runs: number) {
   return { p50: percentile(samples, 50), p95: percentile(samples, 95) }
 }
 
-async function freePort(): Promise<number> {
+export async function freePort(): Promise<number> {
   return new Promise((resolve) => {
     const s = createServer().listen(0, '127.0.0.1', () => {
       const port = (s.address() as { port: number }).port
@@ -66,12 +66,12 @@ export async function ensureBenchData(): Promise<number> {
   return count
 }
 
-/** The built server on a free port against perpend_bench, signed in as `email`. */
-export async function startBenchServer(email: string) {
+/** The built server on a free port against perpend_bench, signed in as `email`; `extraEnv` adds settings. */
+export async function startBenchServer(email: string, extraEnv: Record<string, string> = {}) {
   const port = await freePort()
   const server = spawn('node', ['.output/server/index.mjs'], {
     cwd: root,
-    env: { ...env, PORT: String(port), HOST: '127.0.0.1', NUXT_SESSION_PASSWORD: 'b'.repeat(40), NUXT_MAIL_URL: 'smtp://127.0.0.1:1' },
+    env: { ...env, PORT: String(port), HOST: '127.0.0.1', NUXT_SESSION_PASSWORD: 'b'.repeat(40), NUXT_MAIL_URL: 'smtp://127.0.0.1:1', ...extraEnv },
     stdio: 'ignore',
   })
   const base = `http://127.0.0.1:${port}`
@@ -85,5 +85,5 @@ export async function startBenchServer(email: string) {
     body: JSON.stringify({ email, password: 'corrstone-demo-2026' }),
   })
   const cookie = signIn.headers.getSetCookie()[0]!.split(';')[0]!
-  return { base, cookie, stop: () => server.kill() }
+  return { base, cookie, pid: server.pid!, stop: () => server.kill() }
 }

@@ -16,11 +16,13 @@ export default defineEventHandler(async (event) => {
     }
   }
   catch (error) {
-    console.error('[health] database check failed:', error)
+    console.error('[health] database check failed:', (error as Error).message)
     setResponseStatus(event, 503)
+    setResponseHeader(event, 'Retry-After', DB_RETRY_AFTER_SECONDS)
     return {
       status: 'unavailable',
       version,
+      message: 'The database is unreachable.',
       database: { reachable: false, migrationsCurrent: false, pendingMigrations: [] },
     }
   }

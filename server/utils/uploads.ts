@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto'
 import { createReadStream } from 'node:fs'
 import { mkdir, rm } from 'node:fs/promises'
+import { hostname } from 'node:os'
 import { join, resolve } from 'node:path'
 import formidable, { errors as formidableErrors } from 'formidable'
 import type { H3Event } from 'h3'
@@ -27,6 +28,24 @@ export function uploadRoot(): string {
   return resolve(useRuntimeConfig().uploadDir)
 }
 
+// Every temporary upload folder is named after the process receiving it, so that a server restarted after
+// being killed mid-upload can tell its dead predecessor's leftovers from uploads still running elsewhere.
+const owner = { host: hostname().replace(/[^\w.-]/g, '_'), pid: process.pid, startedAt: Date.now() }
+
+export interface IncomingOwner { host: string, pid: number, startedAt: number }
+
+export function incomingFolderName(): string {
+  return `${owner.host}~${owner.pid}~${owner.startedAt}~${randomUUID()}`
+}
+
+/** Who made a temporary upload folder; null for a name this code did not make. */
+export function incomingFolderOwner(name: string): IncomingOwner | null {
+  const m = /^([\w.-]+)~(\d+)~(\d+)~[0-9a-f-]{36}$/.exec(name)
+  return m ? { host: m[1]!, pid: Number(m[2]), startedAt: Number(m[3]) } : null
+}
+
+export const thisUploadProcess = (): IncomingOwner => ({ ...owner })
+
 const tooLarge = (message: string) => createError({ statusCode: 413, statusMessage: 'Upload too large', message })
 
 /**
@@ -38,7 +57,7 @@ export async function receiveMultipart(event: H3Event, options: { fileField: str
   if (!(getRequestHeader(event, 'content-type') ?? '').startsWith('multipart/form-data')) {
     throw createError({ statusCode: 415, statusMessage: 'Unsupported media type', message: 'Send the form as multipart/form-data.' })
   }
-  const dir = join(uploadRoot(), '.incoming', randomUUID())
+  const dir = join(uploadRoot(), '.incoming', incomingFolderName())
   await mkdir(dir, { recursive: true })
   const cleanup = () => rm(dir, { recursive: true, force: true })
   const maxFiles = uploadLimits.maxFiles - (options.alreadyStoredFiles ?? 0)

@@ -35,12 +35,12 @@ export default defineEventHandler(async (event) => {
       limit: query.pageSize,
       offset: (query.page - 1) * query.pageSize,
     }),
-    Enquiry.findAll({
+    sharedRead(countsKey(query, caller.id), () => Enquiry.findAll({
       attributes: ['status', [fn('COUNT', col('id')), 'n']],
       where,
       group: ['status'],
       raw: true,
-    }) as unknown as Promise<{ status: string, n: number }[]>,
+    }) as unknown as Promise<{ status: string, n: number }[]>),
   ])
 
   const countsByStatus = Object.fromEntries(counts.map(c => [c.status, Number(c.n)]))
@@ -56,6 +56,12 @@ export default defineEventHandler(async (event) => {
     countsByStatus,
   }
 })
+
+/** The filters the status counts depend on: the query without status, order and page; "me" as the caller. */
+function countsKey(query: QueueQuery, callerId: number): string {
+  const { status: _status, sort: _sort, page: _page, pageSize: _pageSize, ...rest } = query
+  return JSON.stringify({ ...rest, assignee: rest.assignee === 'me' ? `user ${callerId}` : rest.assignee })
+}
 
 /** Every filter but status (the status counts are taken over the other filters). */
 function filters(query: QueueQuery, callerId: number, escape: (v: string) => string): WhereOptions {
