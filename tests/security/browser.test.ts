@@ -69,7 +69,7 @@ describe('pages in Chromium under the security policy', async () => {
       project: { name: 'Preview check house', region: 'Clare', stage: 'planning' },
       topic: 'other', subject: 'Drawing preview under the policy', question: 'An enquiry whose PDF drawing is previewed in the browser.', priority: 'normal',
     }))
-    form.append('drawings', new Blob([await makePdf('Preview section')]), 'preview.pdf')
+    form.append('drawings', new Blob([new Uint8Array(await makePdf('Preview section'))]), 'preview.pdf')
     pdfRef = (await callForm('/api/enquiries', form, { cookie: specA })).body.ref
 
     // Every payload in the markdown question, the project fields, a reply and the file names.
@@ -158,7 +158,8 @@ describe('pages in Chromium under the security policy', async () => {
     await page.goto(url('/desk'), { waitUntil: 'networkidle' })
     await page.getByTestId('desk-queue').waitFor()
     await page.goto(url(`/desk/${pdfRef}`), { waitUntil: 'networkidle' })
-    await page.getByRole('button', { name: 'Preview', exact: true }).click()
+    // The first PDF of an enquiry opens in place by itself.
+    await page.getByRole('button', { name: 'Hide preview' }).waitFor()
     const canvas = page.getByTestId('pdf-canvas')
     await expect.poll(() => canvas.evaluate((c: HTMLCanvasElement) => c.width * c.height), { timeout: 20_000 }).toBeGreaterThan(0)
     await expect.poll(() => page.getByText(/Page 1 of 1/).count(), { timeout: 20_000 }).toBeGreaterThan(0)

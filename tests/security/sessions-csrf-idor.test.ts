@@ -1,9 +1,8 @@
 import { randomUUID } from 'node:crypto'
 import { defaults as ironDefaults, seal } from 'iron-webcrypto'
-import { QueryTypes } from 'sequelize'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { call, callForm, currentYear, demo, signIn } from '../support/api'
-import { closeTestDb, testDb } from '../support/db'
+import { closeTestDb } from '../support/db'
 import { makePdf } from '../support/files'
 import { fillPath, matrix, matrixValues } from '../support/routes'
 import type { Who } from '../support/routes'
@@ -16,7 +15,7 @@ const MAX_AGE_MS = 12 * 60 * 60_000 // runtimeConfig.session.maxAge
 /** A session cookie as h3 seals one ({ id, createdAt, data }), with any password and clock. */
 async function sealedCookie(data: Record<string, unknown>, password: string, { ageMs = 0 } = {}) {
   const session = { id: randomUUID(), createdAt: Date.now() - ageMs, data }
-  const sealed = await seal(globalThis.crypto, session, password, { ...ironDefaults, ttl: MAX_AGE_MS, localtimeOffsetMsec: -ageMs })
+  const sealed = await seal(globalThis.crypto as Parameters<typeof seal>[0], session, password, { ...ironDefaults, ttl: MAX_AGE_MS, localtimeOffsetMsec: -ageMs })
   return `${COOKIE}=${sealed}`
 }
 
@@ -41,7 +40,7 @@ describe('sessions, cross-site writes and other organisations\' records', async 
       project: { name: 'Isolation check terrace', region: 'Kerry', stage: 'tender' },
       topic: 'other', subject: 'Records of one firm only', question: 'An enquiry whose records no other firm may see or guess.', priority: 'normal',
     }))
-    form.append('drawings', new Blob([await makePdf('Terrace section')]), 'terrace.pdf')
+    form.append('drawings', new Blob([new Uint8Array(await makePdf('Terrace section'))]), 'terrace.pdf')
     const created = await callForm('/api/enquiries', form, { cookie: cookies.specA })
     expect(created.status).toBe(201)
     ref = created.body.ref
