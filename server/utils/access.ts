@@ -22,7 +22,8 @@ export interface Caller {
 export async function currentCaller(event: H3Event): Promise<Caller | null> {
   if (event.context.caller !== undefined) return event.context.caller as Caller | null
   // Reading a session creates one; without a session cookie there is nobody to look up, and no cookie to set.
-  if (!getCookie(event, useRuntimeConfig().session?.name || 'nuxt-session')) {
+  const cookieName = useRuntimeConfig().session?.name || 'nuxt-session'
+  if (!getCookie(event, cookieName)) {
     event.context.caller = null
     return null
   }
@@ -36,10 +37,22 @@ export async function currentCaller(event: H3Event): Promise<Caller | null> {
     }
     else {
       await clearUserSession(event)
+      forgetRequestCookie(event, cookieName)
     }
   }
   event.context.caller = caller
   return caller
+}
+
+/**
+ * Clearing the session only sets an expired cookie on the response: anything later in this request that reads
+ * the session (nuxt-auth-utils' session route, which the server-side render asks for the page header) would
+ * unseal the request's cookie again and still see the person. Take the cookie out of the request as well.
+ */
+function forgetRequestCookie(event: H3Event, name: string) {
+  const header = event.node.req.headers.cookie
+  if (!header) return
+  event.node.req.headers.cookie = header.split(';').filter(part => part.split('=')[0]!.trim() !== name).join(';')
 }
 
 /** Open to everyone, signed in or not. Resolves the caller when there is one. */

@@ -5,6 +5,7 @@ import { User } from '../../models'
 export default defineEventHandler(async (event) => {
   await publicRoute(event)
   const { email } = await readValidatedBody(event, parseWith(forgotPasswordSchema))
+  rateLimit(event, accountMailLimit('account:forgot-password'))
   const db = useDb()
   await db.transaction(async (transaction) => {
     const user = await User.findOne({ where: { email }, transaction })

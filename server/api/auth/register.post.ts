@@ -9,6 +9,7 @@ import { Organisation, User } from '../../models'
 export default defineEventHandler(async (event) => {
   await publicRoute(event)
   const input = await readValidatedBody(event, parseWith(registerSchema))
+  rateLimit(event, accountMailLimit('account:register'))
   const db = useDb()
   const siteUrl = useRuntimeConfig().siteUrl
 
