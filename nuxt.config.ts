@@ -44,6 +44,8 @@ export default defineNuxtConfig({
       name: 'perpend-session',
       maxAge: 60 * 60 * 12,
       cookie: { sameSite: 'lax', secure: true, httpOnly: true },
+      // The session travels in its cookie only, never in a request header.
+      sessionHeader: false,
     },
     public: {
       appVersion: process.env.npm_package_version || '0.1.0',

@@ -8,10 +8,21 @@ import type { ReceivedForm } from '../../utils/uploads'
 /**
  * Intake: the public and signed-in enquiry form, as multipart/form-data (a `data` field holding the form as
  * JSON, and up to 20 `drawings`) or as JSON when there are no drawings. Rows and files are written together:
- * a refused or broken upload leaves neither.
+ * a refused or broken upload leaves neither. Anonymous senders may send 60 an hour from one address.
  */
+const anonymousIntakeLimit = {
+  bucket: 'intake:anonymous',
+  limit: 60,
+  windowMs: 60 * 60_000,
+  refusal: {
+    statusMessage: 'Too many enquiries',
+    message: (limit: number, retryText: string) => `At most ${limit} enquiries an hour can be sent from one address without signing in. Sign in, or try again in ${retryText}.`,
+  },
+}
 export default defineEventHandler(async (event) => {
   const caller = await publicRoute(event)
+  // An anonymous enquiry mails its acknowledgement to any address typed in: limit what one address may send.
+  if (!caller) rateLimit(event, anonymousIntakeLimit)
   let received: ReceivedForm | null = null
   let input: EnquiryIntake
   const isMultipart = (getRequestHeader(event, 'content-type') ?? '').startsWith('multipart/form-data')
