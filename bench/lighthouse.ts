@@ -22,7 +22,7 @@ const chrome = await chromeLauncher.launch({
   chromeFlags: ['--headless=new', '--no-sandbox', '--disable-gpu', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
 })
 
-const targets = [
+const targets: { name: string, path: string, headers: Record<string, string> }[] = [
   { name: 'library', path: '/library', headers: {} },
   { name: 'desk', path: '/desk', headers: { Cookie: cookie } },
 ]
