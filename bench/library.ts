@@ -12,7 +12,7 @@ import { marked } from 'marked'
 import { parse } from 'yaml'
 import { junctionTypes } from '../shared/library/schemas'
 import type { ItemStatus, JunctionType, LibraryCollection } from '../shared/library/schemas'
-import { buildSearchIndex, rankSearch } from '../shared/library/search'
+import { buildSearchIndex, searchPage } from '../shared/library/search'
 import type { EffectiveStatus, LibrarySearchFilters, SearchDocument } from '../shared/library/search'
 
 const root = fileURLToPath(new URL('..', import.meta.url))
@@ -137,14 +137,14 @@ function bench(label: string, lib: Library, rounds: number) {
   const buildMs = performance.now() - t0
   const statusOf = (code: string) => lib.status.get(code) ?? { status: 'current' as const }
   const queries = queriesFor(lib)
-  for (const { q, filters } of queries) rankSearch(index, q, filters ?? {}, statusOf, 50) // warm-up
+  for (const { q, filters } of queries) searchPage(index, q, filters ?? {}, statusOf, 50) // warm-up
 
   const times: number[] = []
   let hits = 0
   for (let r = 0; r < rounds; r++) {
     for (const { q, filters } of queries) {
       const start = performance.now()
-      hits += rankSearch(index, q, filters ?? {}, statusOf, 50).length
+      hits += searchPage(index, q, filters ?? {}, statusOf, 50).hits.length
       times.push(performance.now() - start)
     }
   }

@@ -1,4 +1,4 @@
-import { formatWorkingDuration } from '~~/shared/time/working-time'
+import { formatWorkingDuration } from '~~/shared/time/format-duration'
 
 /** The desk shows every time in the department's own zone, whatever the reader's device says. */
 const deskTimeZone = 'Europe/Dublin'

@@ -115,7 +115,7 @@ async function seed() {
       const answered = steps.find(s => s.to === 'answered')?.at ?? null
       const closed = steps.find(s => s.to === 'closed')?.at ?? null
       const fields = {
-        receivedAt, priority: e.priority as string, status: e.status as string, firstResponseAt: responded,
+        receivedAt, priority: e.priority as string, status: e.status as string, firstResponseAt: responded, answeredAt: answered,
       }
       const due = computeDueTimes(fields as never, pausesFromEvents(steps.map(st => ({ kind: 'status' as const, fromValue: st.from, toValue: st.to, createdAt: st.at }))), targets)
       const row = await Enquiry.create({
@@ -256,7 +256,8 @@ async function seedBulk(sequelize: Sequelize, count: number, ctx: { orgIds: Map<
       const priority = rand() < 0.08 ? 'urgent' : 'normal'
       const steps = lifeOf(status, receivedAt)
       const responded = steps.find(s => ['waiting_on_requester', 'answered'].includes(s.to))?.at ?? null
-      const due = computeDueTimes({ receivedAt, priority, status, firstResponseAt: responded } as never,
+      const answered = steps.find(s => s.to === 'answered')?.at ?? null
+      const due = computeDueTimes({ receivedAt, priority, status, firstResponseAt: responded, answeredAt: answered } as never,
         pausesFromEvents(steps.map(st => ({ kind: 'status' as const, fromValue: st.from, toValue: st.to, createdAt: st.at }))), ctx.targets)
       lives.push(steps)
       rows.push({
@@ -265,11 +266,12 @@ async function seedBulk(sequelize: Sequelize, count: number, ctx: { orgIds: Map<
         requester_user_id: requester.id, requester_name: requester.name, requester_email: requester.email, requester_phone: null,
         requester_organisation: organisationOf(requester, ctx.orgIds), organisation_id: requester.organisationId, project_id: pick(projects),
         assignee_id: ['received', 'triaged'].includes(status) ? null : pick(staff).id, received_at: receivedAt,
-        first_response_at: responded, answered_at: steps.find(s => s.to === 'answered')?.at ?? null, closed_at: steps.find(s => s.to === 'closed')?.at ?? null,
+        first_response_at: responded, answered_at: answered, closed_at: steps.find(s => s.to === 'closed')?.at ?? null,
         merged_into_id: null, reply_token: randomBytes(16).toString('hex'),
         first_response_due_at: due.firstResponseDueAt, answer_due_at: due.answerDueAt, next_due_at: due.nextDueAt, waiting_since: due.waitingSince,
         // The large set's waits count as already reminded, so a demo server does not mail hundreds at once.
         reminded_at: due.waitingSince ? new Date(Math.min(now, due.waitingSince.getTime() + 7 * 86_400_000)) : null,
+        first_response_working_ms: due.firstResponseWorkingMs, answer_working_ms: due.answerWorkingMs,
         last_activity_at: steps.at(-1)!.at, created_at: receivedAt, updated_at: steps.at(-1)!.at,
       })
     }

@@ -8,7 +8,8 @@ import { responsePacks } from './0007-response-packs'
 import { priceBook } from './0008-price-book'
 import { turnaroundIndexes } from './0009-turnaround-indexes'
 import { remindersAndPackQuotations } from './0010-reminders-and-pack-quotations'
+import { storedWorkingTimes } from './0011-stored-working-times'
 import type { Migration } from './types'
 
 /** Every migration in the order it runs. Append; never edit one that has landed. */
-export const migrations: Migration[] = [foundation, accounts, desk, calculations, libraryStatus, inboundMail, responsePacks, priceBook, turnaroundIndexes, remindersAndPackQuotations]
+export const migrations: Migration[] = [foundation, accounts, desk, calculations, libraryStatus, inboundMail, responsePacks, priceBook, turnaroundIndexes, remindersAndPackQuotations, storedWorkingTimes]

@@ -1,6 +1,9 @@
 import { DataTypes, Model } from 'sequelize'
 import type { CreationOptional, ForeignKey, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize'
 
+// BIGINT columns come back from the driver as bigint or string; the durations fit a double exactly.
+const nullableNumber = (v: unknown): number | null => (v === null || v === undefined ? null : Number(v))
+
 export class Enquiry extends Model<InferAttributes<Enquiry>, InferCreationAttributes<Enquiry>> {
   declare id: CreationOptional<number>
   declare ref: string
@@ -31,6 +34,9 @@ export class Enquiry extends Model<InferAttributes<Enquiry>, InferCreationAttrib
   declare waitingSince: Date | null
   /** When the requester was reminded during the current wait; cleared whenever a new wait starts. */
   declare remindedAt: CreationOptional<Date | null>
+  /** Working time to the first reply and to the answer, stored when each clock stops (shared/time/stopped-clock.ts). */
+  declare firstResponseWorkingMs: CreationOptional<number | null>
+  declare answerWorkingMs: CreationOptional<number | null>
   declare lastActivityAt: CreationOptional<Date>
   declare createdAt: CreationOptional<Date>
   declare updatedAt: CreationOptional<Date>
@@ -65,6 +71,8 @@ export class Enquiry extends Model<InferAttributes<Enquiry>, InferCreationAttrib
       nextDueAt: { type: DataTypes.DATE(3), allowNull: true },
       waitingSince: { type: DataTypes.DATE(3), allowNull: true },
       remindedAt: { type: DataTypes.DATE(3), allowNull: true },
+      firstResponseWorkingMs: { type: DataTypes.BIGINT.UNSIGNED, allowNull: true, get() { return nullableNumber(this.getDataValue('firstResponseWorkingMs')) } },
+      answerWorkingMs: { type: DataTypes.BIGINT.UNSIGNED, allowNull: true, get() { return nullableNumber(this.getDataValue('answerWorkingMs')) } },
       lastActivityAt: { type: DataTypes.DATE(3), allowNull: false, defaultValue: DataTypes.NOW },
       createdAt: DataTypes.DATE(3),
       updatedAt: DataTypes.DATE(3),

@@ -1,6 +1,7 @@
 import type { Transaction } from 'sequelize'
 import { addWorkingTime, defaultCalendar, workingMsBetween } from '../../shared/time/working-time'
 import type { Pause, ServicePriority, ServiceTargetPolicy } from '../../shared/time/working-time'
+import { pausesFromEvents, stoppedClockTimes } from '../../shared/time/stopped-clock'
 import { EnquiryEvent, ServiceTarget } from '../models'
 import type { Enquiry } from '../models'
 
@@ -25,19 +26,11 @@ export async function loadServiceTargets(transaction?: Transaction): Promise<Ser
   return policy
 }
 
-/** Spans spent waiting on the requester, from the enquiry's status events (the last one may still be open). */
-export function pausesFromEvents(events: { kind: string, fromValue: string | null, toValue: string | null, createdAt: Date }[]): Pause[] {
-  const pauses: Pause[] = []
-  for (const e of [...events].sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime())) {
-    if (e.kind !== 'status') continue
-    if (e.toValue === 'waiting_on_requester') pauses.push({ from: e.createdAt, to: null })
-    else if (e.fromValue === 'waiting_on_requester' && pauses.length && pauses.at(-1)!.to === null) pauses.at(-1)!.to = e.createdAt
-  }
-  return pauses
-}
+export { pausesFromEvents }
 
 /**
- * Recomputes the stored due times after any change of state. While the enquiry waits on the requester its
+ * Recomputes the stored due times, and the working times of clocks that have stopped, after any change of
+ * state (every route that changes an enquiry's life calls this in its transaction). While the enquiry waits on the requester its
  * running clock has no due time (it moves on for as long as the wait lasts), so next_due_at is null.
  */
 export async function refreshDueTimes(enquiry: Enquiry, transaction: Transaction): Promise<void> {
@@ -50,10 +43,10 @@ export async function refreshDueTimes(enquiry: Enquiry, transaction: Transaction
 
 /** The pure part of {@link refreshDueTimes}, also used by the demo seed. */
 export function computeDueTimes(
-  e: Pick<Enquiry, 'receivedAt' | 'priority' | 'status' | 'firstResponseAt'>,
+  e: Pick<Enquiry, 'receivedAt' | 'priority' | 'status' | 'firstResponseAt' | 'answeredAt'>,
   pauses: Pause[],
   targets: ServiceTargetPolicy,
-): Pick<Enquiry, 'firstResponseDueAt' | 'answerDueAt' | 'waitingSince' | 'nextDueAt'> {
+): Pick<Enquiry, 'firstResponseDueAt' | 'answerDueAt' | 'waitingSince' | 'nextDueAt' | 'firstResponseWorkingMs' | 'answerWorkingMs'> {
   const target = targets[e.priority as ServicePriority] ?? targets.normal
   const closedPauses = pauses.filter(p => p.to !== null)
   const waiting = pauses.some(p => p.to === null)
@@ -66,6 +59,7 @@ export function computeDueTimes(
     answerDueAt,
     waitingSince: waiting ? pauses.at(-1)!.from : null,
     nextDueAt: done || waiting ? null : (e.firstResponseAt ? answerDueAt : firstResponseDueAt),
+    ...stoppedClockTimes(e, pauses, cal),
   }
 }
 

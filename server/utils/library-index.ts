@@ -3,7 +3,7 @@ import type { H3Event } from 'h3'
 import { LibraryOverride } from '../models'
 import type { ItemStatus, JunctionType, LibraryCollection, RevisionEntry } from '../../shared/library/schemas'
 import { libraryCollections } from '../../shared/library/inputs'
-import { buildSearchIndex, rankSearch } from '../../shared/library/search'
+import { buildSearchIndex, rankSearch, searchPage } from '../../shared/library/search'
 import type { EffectiveStatus, LibrarySearchFilters, LibrarySearchIndex, SearchDocument } from '../../shared/library/search'
 
 /**
@@ -227,8 +227,8 @@ export async function searchLibrary(event: H3Event, input: LibrarySearchInput): 
       .sort((a, b) => libraryCollections.indexOf(a.collection) - libraryCollections.indexOf(b.collection) || a.code.localeCompare(b.code))
     return { total: all.length, results: all.slice(0, limit).map(e => summarise(e, statusOf)) }
   }
-  const hits = rankSearch(lib.index, q, input, statusOf, Number.MAX_SAFE_INTEGER)
-  return { total: hits.length, results: hits.slice(0, limit).map(h => summarise(lib.entries.get(h.code)!, statusOf)) }
+  const { total, hits } = searchPage(lib.index, q, input, statusOf, limit)
+  return { total, results: hits.map(h => summarise(lib.entries.get(h.code)!, statusOf)) }
 }
 
 /** The item with this code, as its page shows it; null when there is none. */

@@ -1,19 +1,19 @@
 import { QueryTypes } from 'sequelize'
 import type { Sequelize } from 'sequelize'
 import { workingDayMs, workingMsBetween } from '../../shared/time/working-time'
-import type { Pause, ServicePriority, ServiceTargetPolicy, WorkingCalendar } from '../../shared/time/working-time'
+import type { ServicePriority, ServiceTargetPolicy, WorkingCalendar } from '../../shared/time/working-time'
 import type { TurnaroundQuery } from '../../shared/schemas/turnaround'
 import { resolvePeriod } from '../../shared/turnaround/period'
-import type { ResolvedPeriod } from '../../shared/turnaround/period'
-import { ageBands, ageBandStarts, median, percentile, shareWithin, toHours } from '../../shared/turnaround/stats'
+import { ageBands, ageBandStarts, toHours } from '../../shared/turnaround/stats'
 import type { AgeBand } from '../../shared/turnaround/stats'
-import { deskCalendar, loadServiceTargets, pausesFromEvents } from './desk-clock'
+import { storeWorkingTimes } from '../database/working-times'
+import { deskCalendar, loadServiceTargets } from './desk-clock'
 
 /**
- * The manager's turnaround figures. Counting and grouping happen in SQL on indexed columns; only the
- * enquiries first answered or replied to within the period are fetched, with their waiting-on-requester
- * events in one further query, because their working time needs the desk's own calendar and pauses
- * (the same module and the same pause rule as the desk's clock, so the figures agree with it).
+ * The manager's turnaround figures, all worked out in SQL over index ranges. The working time to the first
+ * reply and to the answer is stored on the enquiry when each clock stops, by the desk's own clock (the same
+ * working-time module, calendar and pause rule: shared/time/stopped-clock.ts), so medians, P90s and target
+ * shares are window functions and sums over the stored values rather than a calendar walk per row.
  */
 
 const openStatuses = ['received', 'triaged', 'in_hand', 'waiting_on_requester', 'reopened'] as const
@@ -33,109 +33,62 @@ function filterSql(q: Filters): { sql: string, replacements: Record<string, unkn
 
 const asDate = (v: unknown): Date | null => (v === null || v === undefined ? null : v instanceof Date ? v : new Date(`${String(v).replace(' ', 'T')}Z`))
 
-interface TimedRow {
-  id: number
-  ref: string
-  priority: string
-  assigneeId: number | null
-  receivedAt: Date
-  firstResponseAt: Date | null
-  answeredAt: Date | null
-  /** Working ms from receipt to the first reply, pauses excluded; null without a reply. */
-  firstResponseMs: number | null
-  /** Working ms from receipt to the answer, pauses excluded; null while unanswered. */
-  answerMs: number | null
+const targetOf = (targets: ServiceTargetPolicy, priority: string) => targets[priority as ServicePriority] ?? targets.normal
+
+/** The two stopped clocks: the instant each stops and the working time stored when it did. */
+const clocks = {
+  firstResponse: { at: 'e.first_response_at', ms: 'e.first_response_working_ms', target: 'firstResponseMs' },
+  answer: { at: 'e.answered_at', ms: 'e.answer_working_ms', target: 'answerMs' },
+} as const
+type ClockName = keyof typeof clocks
+
+/** Enquiries whose clock stopped within the period: one index range, read from the index alone. */
+function stoppedIn(clock: ClockName, where: string): string {
+  const c = clocks[clock]
+  return `FROM enquiries e WHERE ${where} AND ${c.at} >= :start AND ${c.at} < :end AND ${c.ms} IS NOT NULL`
 }
 
 /**
- * One query for the waiting-on-requester transitions of many enquiries, grouped into pauses per enquiry.
- * The enquiries are named by the same SQL that picks the rows (`idsSql` selects their `id`), so this runs
- * beside the row query rather than after it.
+ * Rows written without their stored times (an import, a hand-made set) get them the first time the figures
+ * meet them, through the same rule the desk uses; afterwards they are read like every other row.
  */
-async function pausesFor(db: Sequelize, idsSql: string, replacements: Record<string, unknown>): Promise<Map<number, Pause[]>> {
-  const byId = new Map<number, { kind: string, fromValue: string | null, toValue: string | null, createdAt: Date }[]>()
-  const events = await db.query<{ enquiry_id: number, from_value: string | null, to_value: string | null, created_at: Date }>(
-    // A join on the derived id list: MariaDB runs `IN (… UNION …)` as a dependent subquery per event row.
-    `SELECT ev.enquiry_id, ev.from_value, ev.to_value, ev.created_at FROM enquiry_events ev
-      JOIN (${idsSql}) AS picked ON picked.id = ev.enquiry_id
-      WHERE ev.kind = 'status' AND (ev.to_value = 'waiting_on_requester' OR ev.from_value = 'waiting_on_requester')`,
+async function fillMissingTimes(db: Sequelize, where: string, replacements: Record<string, unknown>): Promise<void> {
+  const missing = await db.query<{ id: number }>(
+    (Object.keys(clocks) as ClockName[]).map((k) => {
+      const c = clocks[k]
+      return `SELECT e.id FROM enquiries e WHERE ${where} AND ${c.at} >= :start AND ${c.at} < :end AND ${c.ms} IS NULL`
+    }).join(' UNION '),
     { replacements, type: QueryTypes.SELECT },
   )
-  for (const ev of events) {
-    let list = byId.get(ev.enquiry_id)
-    if (!list) byId.set(ev.enquiry_id, list = [])
-    list.push({ kind: 'status', fromValue: ev.from_value, toValue: ev.to_value, createdAt: asDate(ev.created_at)! })
-  }
-  return new Map([...byId].map(([id, list]) => [id, pausesFromEvents(list)]))
+  if (missing.length) await storeWorkingTimes(db, missing.map(r => Number(r.id)))
 }
+
+const num = (v: unknown): number | null => (v === null || v === undefined ? null : Number(v))
 
 /**
- * Working times already worked out, keyed by everything they depend on (the enquiry's instants and its
- * pauses; the calendar is fixed for the life of the process). An answered enquiry's times never change
- * unless one of those inputs does, which changes the key — so the Monday view does not redo the same
- * calendar walk for thousands of rows on every request. Bounded: cleared when it grows past its size.
+ * Count, median and nearest-rank P90 of one clock's stored times, over the whole set and per group.
+ * MariaDB's PERCENTILE_CONT(0.5) is the median as shared/turnaround/stats.ts defines it (the mean of the
+ * two middle values of an even count), and PERCENTILE_DISC(0.9) the first value whose cumulative share
+ * reaches 90 % — rank ⌈0.9 n⌉, the nearest-rank P90.
  */
-const workingTimeMemo = new Map<string, { first: number | null, answer: number | null }>()
-const MEMO_LIMIT = 250_000
-
-function workingTimes(id: number, receivedAt: Date, firstResponseAt: Date | null, answeredAt: Date | null, pauses: Pause[], cal: WorkingCalendar) {
-  const key = `${id}|${receivedAt.getTime()}|${firstResponseAt?.getTime() ?? ''}|${answeredAt?.getTime() ?? ''}|${pauses.map(p => `${p.from.getTime()}-${p.to?.getTime() ?? ''}`).join(',')}`
-  let hit = workingTimeMemo.get(key)
-  if (!hit) {
-    hit = {
-      first: firstResponseAt ? workingMsBetween(receivedAt, firstResponseAt, cal, pauses) : null,
-      answer: answeredAt ? workingMsBetween(receivedAt, answeredAt, cal, pauses) : null,
-    }
-    if (workingTimeMemo.size >= MEMO_LIMIT) workingTimeMemo.clear()
-    workingTimeMemo.set(key, hit)
-  }
-  return hit
+function distributionSql(clock: ClockName, where: string, groupBy?: string): string {
+  const ms = clocks[clock].ms
+  const over = groupBy ? `OVER (PARTITION BY ${groupBy})` : 'OVER ()'
+  return `SELECT DISTINCT ${groupBy ?? 'NULL'} AS g, COUNT(*) ${over} AS n,
+      PERCENTILE_CONT(0.5) WITHIN GROUP (ORDER BY ${ms}) ${over} AS median_ms,
+      PERCENTILE_DISC(0.9) WITHIN GROUP (ORDER BY ${ms}) ${over} AS p90_ms
+    ${stoppedIn(clock, where)}`
 }
 
-/** Rows with their working times, in one pass once the pauses are in. */
-async function timedRows(db: Sequelize, rowsSql: string, idsSql: string, replacements: Record<string, unknown>, cal: WorkingCalendar): Promise<(TimedRow & Record<string, unknown>)[]> {
-  const [rows, pauses] = await Promise.all([
-    db.query<Record<string, unknown>>(rowsSql, { replacements, type: QueryTypes.SELECT }),
-    pausesFor(db, idsSql, replacements),
-  ])
-  return rows.map((r) => {
-    const id = Number(r.id)
-    const receivedAt = asDate(r.received_at)!
-    const firstResponseAt = asDate(r.first_response_at)
-    const answeredAt = asDate(r.answered_at)
-    const times = workingTimes(id, receivedAt, firstResponseAt, answeredAt, pauses.get(id) ?? [], cal)
-    return {
-      ...r,
-      id,
-      ref: r.ref === undefined ? '' : String(r.ref),
-      priority: String(r.priority),
-      assigneeId: r.assignee_id === null ? null : Number(r.assignee_id),
-      receivedAt,
-      firstResponseAt,
-      answeredAt,
-      firstResponseMs: times.first,
-      answerMs: times.answer,
-    }
-  })
+/** Per priority: how many stopped, and how many within that priority's target (met exactly is met). */
+function withinTargetSql(clock: ClockName, where: string): string {
+  return `SELECT e.priority AS g, COUNT(*) AS n,
+      SUM(${clocks[clock].ms} <= CASE e.priority WHEN 'urgent' THEN :urgentTarget ELSE :normalTarget END) AS within
+    ${stoppedIn(clock, where)} GROUP BY e.priority`
 }
 
-/**
- * Enquiries first replied to or answered in the period: two index ranges, not one OR that scans the table.
- * The second leaves out what the first found, so the halves need no de-duplicating (UNION ALL).
- */
-function repliedOrAnswered(where: string, cols: string): string {
-  return `SELECT ${cols} FROM enquiries e WHERE ${where} AND e.answered_at >= :start AND e.answered_at < :end
-    UNION ALL
-    SELECT ${cols} FROM enquiries e WHERE ${where} AND e.first_response_at >= :start AND e.first_response_at < :end
-      AND (e.answered_at IS NULL OR e.answered_at < :start OR e.answered_at >= :end)`
-}
-
-const targetOf = (targets: ServiceTargetPolicy, priority: string) => targets[priority as ServicePriority] ?? targets.normal
-const inSpan = (d: Date | null, period: ResolvedPeriod) => !!d && d >= period.start && d < period.end
-
-function summary(values: number[]) {
-  return { n: values.length, medianHours: toHours(median(values)), p90Hours: toHours(percentile(values, 90)) }
-}
+interface Distribution { g: unknown, n: unknown, median_ms: unknown, p90_ms: unknown }
+const summary = (d: Distribution | undefined) => ({ n: Number(d?.n ?? 0), medianHours: toHours(num(d?.median_ms)), p90Hours: toHours(num(d?.p90_ms)) })
 
 /**
  * The latest instant t at which an enquiry received then is `days` working days old now: an enquiry
@@ -171,8 +124,13 @@ export async function turnaroundFigures(query: TurnaroundQuery, now = new Date()
   const weekBounds = Object.fromEntries(period.weeks.map((w, i) => [`w${i}`, w.end]))
   const select = <T extends object>(sql: string, replacements: Record<string, unknown> = span) => db.query<T>(sql, { replacements, type: QueryTypes.SELECT })
 
-  const [targets, received, [closed], backlog, overdue, openByOfficer, timed] = await Promise.all([
-    loadServiceTargets(),
+  const targets = await loadServiceTargets()
+  const timedSpan = { ...span, ...weekBounds, normalTarget: 0, urgentTarget: 0 }
+  const targetSpan = (key: 'firstResponseMs' | 'answerMs') => ({ ...timedSpan, normalTarget: targets.normal[key], urgentTarget: targets.urgent[key] })
+  await fillMissingTimes(db, f.sql, span)
+  const answerWeekCase = `CASE ${period.weeks.map((_, i) => `WHEN e.answered_at < :w${i} THEN ${i}`).join(' ')} END`
+
+  const [received, [closed], backlog, overdue, openByOfficer, firstAll, answerAll, answerByOfficer, answerByWeek, firstWithin, answerWithin] = await Promise.all([
     // Received in the period: one index range, grouped at once by week, topic and organisation.
     select<{ w: number, topic: string, organisation_id: number | null, n: number }>(`SELECT ${weekCase} AS w, e.topic, e.organisation_id, COUNT(*) AS n
       FROM enquiries e WHERE ${f.sql} AND e.received_at >= :start AND e.received_at < :end GROUP BY w, e.topic, e.organisation_id`, { ...span, ...weekBounds }),
@@ -189,7 +147,12 @@ export async function turnaroundFigures(query: TurnaroundQuery, now = new Date()
       WHERE ${f.sql} AND e.status IN (:open) AND e.next_due_at < :now ORDER BY e.next_due_at, e.id LIMIT 50`),
     select<{ assignee_id: number | null, n: number }>(`SELECT e.assignee_id, COUNT(*) AS n FROM enquiries e
       WHERE ${f.sql} AND e.status IN (:open) GROUP BY e.assignee_id`),
-    timedRows(db, repliedOrAnswered(f.sql, 'e.id, e.priority, e.assignee_id, e.received_at, e.first_response_at, e.answered_at'), repliedOrAnswered(f.sql, 'e.id'), span, cal),
+    select<Distribution>(distributionSql('firstResponse', f.sql), timedSpan),
+    select<Distribution>(distributionSql('answer', f.sql), timedSpan),
+    select<Distribution>(distributionSql('answer', f.sql, 'e.assignee_id'), timedSpan),
+    select<Distribution>(distributionSql('answer', f.sql, answerWeekCase), timedSpan),
+    select<{ g: string, n: number, within: number }>(withinTargetSql('firstResponse', f.sql), targetSpan('firstResponseMs')),
+    select<{ g: string, n: number, within: number }>(withinTargetSql('answer', f.sql), targetSpan('answerMs')),
   ])
 
   const receivedByWeek = new Map<number, number>()
@@ -203,44 +166,24 @@ export async function turnaroundFigures(query: TurnaroundQuery, now = new Date()
   }
   const topOrgs = [...orgCounts].sort((a, b) => b[1] - a[1]).slice(0, 10)
 
-  // One pass over the timed rows: every list and tally the figures need.
-  const firstResponse: number[] = []
-  const answer: number[] = []
-  const perPriority = new Map<string, { first: number[], answer: number[] }>()
-  const perOfficer = new Map<number | null, number[]>()
-  const perWeek = new Map<string, number[]>()
-  for (const r of timed) {
-    const slot = perPriority.get(r.priority) ?? { first: [], answer: [] }
-    perPriority.set(r.priority, slot)
-    if (inSpan(r.firstResponseAt, period) && r.firstResponseMs !== null) {
-      firstResponse.push(r.firstResponseMs)
-      slot.first.push(r.firstResponseMs)
-    }
-    if (inSpan(r.answeredAt, period) && r.answerMs !== null) {
-      answer.push(r.answerMs)
-      slot.answer.push(r.answerMs)
-      const o = perOfficer.get(r.assigneeId) ?? []
-      o.push(r.answerMs)
-      perOfficer.set(r.assigneeId, o)
-      // The week from its bounds as instants: no time-zone formatting per row.
-      const at = r.answeredAt!.getTime()
-      const week = period.weeks.find(w => at < w.end.getTime())!.week
-      const w = perWeek.get(week) ?? []
-      w.push(r.answerMs)
-      perWeek.set(week, w)
-    }
+  const perOfficer = new Map(answerByOfficer.map(d => [num(d.g), d]))
+  const perWeek = new Map(answerByWeek.map(d => [Number(d.g), d]))
+  const share = (rows: { g: string, n: number, within: number }[], priority: string) => {
+    const r = rows.find(x => x.g === priority)
+    const n = Number(r?.n ?? 0)
+    const within = Number(r?.within ?? 0)
+    return { n, within, share: n ? within / n : null }
   }
-
-  const priorityNames = [...new Set(['normal', 'urgent', ...perPriority.keys()])].filter(p => !query.priority || p === query.priority)
+  const priorityNames = [...new Set(['normal', 'urgent', ...firstWithin.map(r => r.g), ...answerWithin.map(r => r.g)])]
+    .filter(p => !query.priority || p === query.priority)
   const targetShare = priorityNames.map((priority) => {
     const t = targetOf(targets, priority)
-    const slot = perPriority.get(priority) ?? { first: [], answer: [] }
     return {
       priority,
       firstResponseTargetHours: toHours(t.firstResponseMs),
       answerTargetHours: toHours(t.answerMs),
-      firstResponse: shareWithin(slot.first, t.firstResponseMs),
-      answer: shareWithin(slot.answer, t.answerMs),
+      firstResponse: share(firstWithin, priority),
+      answer: share(answerWithin, priority),
     }
   })
   const all = (key: 'firstResponse' | 'answer') => {
@@ -248,9 +191,11 @@ export async function turnaroundFigures(query: TurnaroundQuery, now = new Date()
     const within = targetShare.reduce((a, s) => a + s[key].within, 0)
     return { n, within, share: n ? within / n : null }
   }
+  const firstResponse = summary(firstAll[0])
+  const answer = summary(answerAll[0])
 
   // Officers: everyone on staff, and anyone else who holds work in these figures.
-  const officerIds = new Set<number>([...openByOfficer.map(o => o.assignee_id), ...perOfficer.keys()].filter((x): x is number => x !== null))
+  const officerIds = new Set<number>([...openByOfficer.map(o => num(o.assignee_id)), ...perOfficer.keys()].filter((x): x is number => x !== null))
   const orgIds = topOrgs.map(([id]) => id).filter((x): x is number => x !== null)
   const [staff, orgNames] = await Promise.all([select<{ id: number, name: string, role: string }>(
     `SELECT id, name, role FROM users WHERE (role IN ('officer', 'manager', 'admin') AND deactivated_at IS NULL)${officerIds.size ? ' OR id IN (:ids)' : ''} ORDER BY name`,
@@ -260,8 +205,8 @@ export async function turnaroundFigures(query: TurnaroundQuery, now = new Date()
     ...staff.filter(s => !query.officer || s.id === query.officer).map(s => ({ id: s.id as number | null, name: s.name })),
     { id: null, name: 'Not assigned' },
   ].map((s) => {
-    const times = perOfficer.get(s.id) ?? []
-    return { ...s, open: Number(openByOfficer.find(o => o.assignee_id === s.id)?.n ?? 0), answered: times.length, medianAnswerHours: toHours(median(times)) }
+    const times = summary(perOfficer.get(s.id))
+    return { ...s, open: Number(openByOfficer.find(o => o.assignee_id === s.id)?.n ?? 0), answered: times.n, medianAnswerHours: times.medianHours }
   }).filter(o => o.id !== null ? (o.open || o.answered || staff.find(s => s.id === o.id)?.role === 'officer') : o.open || o.answered)
 
   const statusCounts = Object.fromEntries(openStatuses.map(s => [s, 0])) as Record<typeof openStatuses[number], number>
@@ -283,12 +228,12 @@ export async function turnaroundFigures(query: TurnaroundQuery, now = new Date()
     filters: { topic: query.topic ?? null, officer: query.officer ?? null, organisation: query.organisation ?? null, priority: query.priority ?? null },
     counts: {
       received: [...receivedByWeek.values()].reduce((a, n) => a + n, 0),
-      answered: answer.length,
-      firstResponses: firstResponse.length,
+      answered: answer.n,
+      firstResponses: firstResponse.n,
       closed: Number(closed?.n ?? 0),
     },
-    firstResponse: { ...summary(firstResponse), withinTarget: all('firstResponse') },
-    answer: { ...summary(answer), withinTarget: all('answer') },
+    firstResponse: { ...firstResponse, withinTarget: all('firstResponse') },
+    answer: { ...answer, withinTarget: all('answer') },
     targetShare,
     backlog: {
       total: Object.values(statusCounts).reduce((a, b) => a + b, 0),
@@ -310,13 +255,13 @@ export async function turnaroundFigures(query: TurnaroundQuery, now = new Date()
     topics: [...topicCounts].sort((a, b) => b[1] - a[1] || a[0].localeCompare(b[0])).map(([topic, n]) => ({ topic, n })),
     organisations: topOrgs.map(([id, n]) => ({ id, name: id === null ? 'No organisation (public requesters)' : orgNames.find(o => o.id === id)?.name ?? `Organisation ${id}`, n })),
     trend: period.weeks.map((w, i) => {
-      const times = perWeek.get(w.week) ?? []
+      const times = summary(perWeek.get(i))
       return {
         week: w.week,
         startDate: w.startDate,
         received: receivedByWeek.get(i) ?? 0,
-        answered: times.length,
-        medianAnswerHours: toHours(median(times)),
+        answered: times.n,
+        medianAnswerHours: times.medianHours,
       }
     }),
     generatedAt: now.toISOString(),
@@ -330,20 +275,19 @@ export async function officerOwnFigures(officerId: number, query: TurnaroundQuer
   const period = resolvePeriod(query, now, cal.timeZone)
   const f = filterSql({ ...query, officer: officerId })
   const span = { ...f.replacements, start: period.start, end: period.end, open: openStatuses }
-  const [[open], answered] = await Promise.all([
+  await fillMissingTimes(db, f.sql, span)
+  const [[open], [answered]] = await Promise.all([
     db.query<{ n: number, overdue: number }>(`SELECT COUNT(*) AS n, SUM(e.next_due_at < :now) AS overdue FROM enquiries e WHERE ${f.sql} AND e.status IN (:open)`,
       { replacements: { ...span, now }, type: QueryTypes.SELECT }),
-    timedRows(db, `SELECT e.id, e.priority, e.assignee_id, e.received_at, e.first_response_at, e.answered_at FROM enquiries e
-      WHERE ${f.sql} AND e.answered_at >= :start AND e.answered_at < :end`,
-    `SELECT e.id FROM enquiries e WHERE ${f.sql} AND e.answered_at >= :start AND e.answered_at < :end`, span, cal),
+    db.query<Distribution>(distributionSql('answer', f.sql), { replacements: span, type: QueryTypes.SELECT }),
   ])
-  const times = answered.map(r => r.answerMs!).filter(ms => ms !== null)
+  const times = summary(answered)
   return {
     period: { kind: period.kind, fromDate: period.fromDate, toDate: period.toDate },
     open: Number(open?.n ?? 0),
     overdue: Number(open?.overdue ?? 0),
-    answered: times.length,
-    medianAnswerHours: toHours(median(times)),
+    answered: times.n,
+    medianAnswerHours: times.medianHours,
   }
 }
 
@@ -354,29 +298,44 @@ export async function turnaroundExportRows(query: TurnaroundQuery, now = new Dat
   const period = resolvePeriod(query, now, cal.timeZone)
   const f = filterSql(query)
   const span = { ...f.replacements, start: period.start, end: period.end }
-  const cols = `e.id, e.ref, e.status, e.topic, e.priority, e.assignee_id, e.organisation_id, e.received_at, e.first_response_at, e.answered_at, e.closed_at`
+  const cols = `e.id, e.ref, e.status, e.topic, e.priority, e.assignee_id, e.organisation_id, e.received_at, e.first_response_at, e.answered_at, e.closed_at,
+    e.first_response_working_ms, e.answer_working_ms`
   const ids = ['received_at', 'first_response_at', 'answered_at', 'closed_at']
     .map(c => `SELECT e.id FROM enquiries e WHERE ${f.sql} AND e.${c} >= :start AND e.${c} < :end`).join(' UNION ')
   const [targets, rows] = await Promise.all([
     loadServiceTargets(),
-    timedRows(db, `SELECT ${cols}, u.name AS officer, COALESCE(o.name, e.requester_organisation) AS organisation_name
+    db.query<Record<string, unknown>>(`SELECT ${cols}, u.name AS officer, COALESCE(o.name, e.requester_organisation) AS organisation_name
       FROM (${ids}) AS picked JOIN enquiries e ON e.id = picked.id
       LEFT JOIN users u ON u.id = e.assignee_id LEFT JOIN organisations o ON o.id = e.organisation_id
-      ORDER BY e.received_at, e.id`, ids, span, cal),
+      ORDER BY e.received_at, e.id`, { replacements: span, type: QueryTypes.SELECT }),
   ])
+  // A row received or closed in the period may have stopped its clocks outside it, unfilled as yet.
+  const unfilled = rows.filter(r => (r.first_response_at !== null && r.first_response_working_ms === null) || (r.answered_at !== null && r.answer_working_ms === null))
+  const filled = await storeWorkingTimes(db, unfilled.map(r => Number(r.id)))
   return {
     period,
     rows: rows.map((r) => {
-      const t = targetOf(targets, r.priority)
+      const id = Number(r.id)
+      const priority = String(r.priority)
+      const t = targetOf(targets, priority)
+      const firstResponseMs = filled.get(id)?.firstResponseWorkingMs ?? num(r.first_response_working_ms)
+      const answerMs = filled.get(id)?.answerWorkingMs ?? num(r.answer_working_ms)
       return {
-        ...r,
+        id,
+        ref: String(r.ref),
         status: String(r.status),
         topic: String(r.topic),
+        priority,
+        receivedAt: asDate(r.received_at)!,
+        firstResponseAt: asDate(r.first_response_at),
+        answeredAt: asDate(r.answered_at),
         closedAt: asDate(r.closed_at),
         officer: (r.officer as string | null) ?? null,
         organisation: (r.organisation_name as string | null) ?? null,
-        firstResponseWithin: r.firstResponseMs === null ? null : r.firstResponseMs <= t.firstResponseMs,
-        answerWithin: r.answerMs === null ? null : r.answerMs <= t.answerMs,
+        firstResponseMs,
+        answerMs,
+        firstResponseWithin: firstResponseMs === null ? null : firstResponseMs <= t.firstResponseMs,
+        answerWithin: answerMs === null ? null : answerMs <= t.answerMs,
       }
     }),
   }

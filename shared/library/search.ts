@@ -144,17 +144,18 @@ export function buildSearchIndex(documents: SearchDocument[]): LibrarySearchInde
  * Runs a query over the index: filters on collection, junction type and (effective) status, demotes
  * superseded items, and keeps each superseded item below its successor when both are found. An item whose
  * code is the whole query stays first — whoever types a code in full wants that sheet, superseded or not.
+ * Answers the number of items found and the best `limit` of them.
  */
-export function rankSearch(
+export function searchPage(
   index: LibrarySearchIndex,
   query: string,
   filters: LibrarySearchFilters,
   statusOf: (code: string) => EffectiveStatus,
   limit: number,
   extra: SearchOptions = {},
-): RankedHit[] {
+): { total: number, hits: RankedHit[] } {
   const q = query.trim()
-  if (!q) return []
+  if (!q) return { total: 0, hits: [] }
   const exact = anyCodePattern.test(q.toUpperCase()) ? q.toUpperCase() : null
   const results: SearchResult[] = index.miniSearch.search(q, {
     fuzzy: term => fuzzyFor(term, index.vocabulary),
@@ -165,19 +166,59 @@ export function rankSearch(
       if (filters.status && statusOf(String(r.id)).status !== filters.status) return false
       return true
     },
-    boostDocument: id => (statusOf(String(id)).status === 'superseded' ? supersededFactor : 1),
   })
-  const hits: RankedHit[] = results.map(r => ({ code: String(r.id), score: r.score, exactCode: String(r.id) === exact }))
-
-  // Successors first, so each superseded item can be held just under its successor's final score.
-  const byCode = new Map(hits.map(h => [h.code, h]))
-  for (const hit of hits) {
-    const { status, supersededBy } = statusOf(hit.code)
-    if (status !== 'superseded' || !supersededBy || hit.exactCode) continue
-    const successor = byCode.get(supersededBy)
-    if (successor && successor.score <= hit.score) hit.score = successor.score * 0.999
+  // The superseded factor is applied to the item's total rather than, through MiniSearch's boostDocument,
+  // to every word and field it matched: the same product (the factor does not depend on the word), without
+  // a call per posting — most of what a common word costs in a large library.
+  const hits: RankedHit[] = []
+  const superseded: { hit: RankedHit, successor: string }[] = []
+  for (const r of results) {
+    const code = String(r.id)
+    const { status, supersededBy } = statusOf(code)
+    const hit = { code, score: status === 'superseded' ? r.score * supersededFactor : r.score, exactCode: code === exact }
+    hits.push(hit)
+    if (status === 'superseded' && supersededBy && !hit.exactCode) superseded.push({ hit, successor: supersededBy })
   }
-  hits.sort((a, b) => Number(b.exactCode) - Number(a.exactCode) || b.score - a.score || a.code.localeCompare(b.code))
-  return hits.slice(0, limit)
+
+  // Each superseded item is held just under its successor's final score, when both are found.
+  if (superseded.length) {
+    const wanted = new Set(superseded.map(s => s.successor))
+    const successors = new Map(hits.filter(h => wanted.has(h.code)).map(h => [h.code, h]))
+    for (const { hit, successor } of superseded) {
+      const next = successors.get(successor)
+      if (next && next.score <= hit.score) hit.score = next.score * 0.999
+    }
+  }
+  return { total: hits.length, hits: bestFirst(hits, limit) }
 }
 
+const ranking = (a: RankedHit, b: RankedHit) => Number(b.exactCode) - Number(a.exactCode) || b.score - a.score || a.code.localeCompare(b.code)
+
+/**
+ * The best `limit` hits in ranking order. A search-as-you-type page shows a few dozen of the thousands a
+ * common word finds: keep a sorted page and let through only what beats its last, instead of sorting all.
+ */
+function bestFirst(hits: RankedHit[], limit: number): RankedHit[] {
+  if (hits.length <= limit * 4) return hits.sort(ranking).slice(0, limit)
+  const page: RankedHit[] = []
+  for (const h of hits) {
+    if (page.length === limit && ranking(h, page[limit - 1]!) >= 0) continue
+    let at = page.length
+    while (at > 0 && ranking(h, page[at - 1]!) < 0) at--
+    page.splice(at, 0, h)
+    if (page.length > limit) page.pop()
+  }
+  return page
+}
+
+/** {@link searchPage}'s hits alone. */
+export function rankSearch(
+  index: LibrarySearchIndex,
+  query: string,
+  filters: LibrarySearchFilters,
+  statusOf: (code: string) => EffectiveStatus,
+  limit: number,
+  extra: SearchOptions = {},
+): RankedHit[] {
+  return searchPage(index, query, filters, statusOf, limit, extra).hits
+}

@@ -1,6 +1,7 @@
 import { QueryTypes } from 'sequelize'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { defaultCalendar, serviceClock } from '../../shared/time/working-time'
+import { pausesFromEvents, stoppedClockTimes } from '../../shared/time/stopped-clock'
 import { call, demo, signIn } from '../support/api'
 import { closeTestDb, testDb } from '../support/db'
 import { useBuiltServer } from '../support/server'
@@ -179,6 +180,49 @@ describe('turnaround figures', async () => {
       pauses: [{ from: d('2026-11-10T10:00'), to: d('2026-11-12T10:00') }], calendar: defaultCalendar(),
     })
     expect(clock.elapsedWorkingMs / 3_600_000).toBe(3) // C's answer time in the figures above
+  })
+
+  it('keeps the working times it counted on the enquiries, so later figures read them from the index', async () => {
+    await call(`/api/turnaround?${period}&organisation=${orgId}`, { cookie: manager })
+    const rows = await testDb().query<{ subject: string, first: number | null, answer: number | null }>(
+      `SELECT subject, first_response_working_ms AS first, answer_working_ms AS answer FROM enquiries WHERE organisation_id = ? ORDER BY subject`,
+      { replacements: [orgId], type: QueryTypes.SELECT },
+    )
+    const hours = Object.fromEntries(rows.map(r => [r.subject.slice(-1), [r.first === null ? null : Number(r.first) / 3_600_000, r.answer === null ? null : Number(r.answer) / 3_600_000]]))
+    // The hand-worked times of the table above; D's first reply was before the week, its answer in it.
+    expect(hours).toEqual({ A: [2, 4], B: [4.5, 9.5], C: [0.5, 3], D: [8.5, 45.5], E: [12, null], F: [16.5, 17], G: [null, null], H: [18, 19], I: [null, null] })
+  })
+
+  it('has the desk store the times itself when a clock stops, by the rule the figures use', async () => {
+    const intake = {
+      requester: { name: 'Clock Check', organisation: 'Walk-in Design', email: 'clock@turnaround.example', phone: '+353 1 555 0101' },
+      project: { name: 'Clock check house', region: 'Wexford', stage: 'planning', storeys: 2 },
+      topic: 'thermal', subject: 'Stored working times check', question: 'A question made up to check the stored working times.', priority: 'normal',
+    }
+    const { body: made } = await call('/api/enquiries', { body: intake })
+    for (const status of ['in_hand', 'waiting_on_requester', 'in_hand', 'answered']) {
+      const res = await call(`/api/enquiries/${made.ref}`, { method: 'PATCH', cookie: officer, body: { status } })
+      expect(res.status, JSON.stringify(res.body)).toBe(200)
+    }
+    const db = testDb()
+    const [row] = await db.query<{ id: number, received_at: Date, first_response_at: Date, answered_at: Date, first: number, answer: number }>(
+      'SELECT id, received_at, first_response_at, answered_at, first_response_working_ms AS first, answer_working_ms AS answer FROM enquiries WHERE ref = ?',
+      { replacements: [made.ref], type: QueryTypes.SELECT },
+    )
+    const events = await db.query<{ from_value: string | null, to_value: string, created_at: Date }>(
+      'SELECT from_value, to_value, created_at FROM enquiry_events WHERE enquiry_id = ? AND kind = \'status\'', { replacements: [row!.id], type: QueryTypes.SELECT },
+    )
+    expect(events.some(e => e.to_value === 'waiting_on_requester')).toBe(true)
+    const expected = stoppedClockTimes(
+      { receivedAt: new Date(row!.received_at), firstResponseAt: new Date(row!.first_response_at), answeredAt: new Date(row!.answered_at) },
+      pausesFromEvents(events.map(e => ({ kind: 'status', fromValue: e.from_value, toValue: e.to_value, createdAt: new Date(e.created_at) }))),
+      defaultCalendar(),
+    )
+    expect({ first: Number(row!.first), answer: Number(row!.answer) }).toEqual({ first: expected.firstResponseWorkingMs, answer: expected.answerWorkingMs })
+    // Reopened, the answer clock runs again: its stored time goes until the next answer.
+    expect((await call(`/api/enquiries/${made.ref}`, { method: 'PATCH', cookie: officer, body: { status: 'reopened' } })).status).toBe(200)
+    const [after] = await db.query<{ answer: number | null, first: number | null }>('SELECT answer_working_ms AS answer, first_response_working_ms AS first FROM enquiries WHERE ref = ?', { replacements: [made.ref], type: QueryTypes.SELECT })
+    expect(after).toEqual({ answer: null, first: row!.first })
   })
 
   it('gives an officer their own figures', async () => {
