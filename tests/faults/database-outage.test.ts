@@ -13,12 +13,15 @@ describe('a database outage', () => {
   let db: PrivateDb
   let server: ChildServer
   let officer = ''
+  let specifier = ''
 
   beforeAll(async () => {
     db = await startPrivateDb()
     await db.prepare()
     server = await startChildServer({ ...db.env, NUXT_MAIL_URL: 'smtp://127.0.0.1:1', NUXT_UPLOAD_DIR: `${db.varDir}/uploads` })
     officer = await signInAt(server.base, demo.officer)
+    // Writes come from a signed-in specifier: the anonymous form allows one address 60 an hour.
+    specifier = await signInAt(server.base, demo.specA)
   })
   afterAll(async () => {
     await server?.stop()
@@ -36,7 +39,7 @@ describe('a database outage', () => {
         const write = (seq++ % 2) === 0
         const subject = `Outage probe ${n}-${seq}`
         const res = write
-          ? await postEnquiry(server.base, subject)
+          ? await postEnquiry(server.base, subject, specifier)
           : await fetch(`${server.base}/api/enquiries?pageSize=5`, { headers: { cookie: officer, accept: 'application/json' } })
         const body = await res.json().catch(() => null) as { message?: string } | null
         outcomes.push({ kind: write ? 'write' : 'read', status: res.status, message: body?.message, retryAfter: res.headers.get('retry-after'), subject: write ? subject : undefined, at: Date.now() - started })

@@ -1,6 +1,6 @@
 import { afterAll, describe, expect, it } from 'vitest'
 import { QueryTypes } from 'sequelize'
-import { call } from '../support/api'
+import { call, demo, signIn } from '../support/api'
 import { closeTestDb, testDb } from '../support/db'
 import { useBuiltServer } from '../support/server'
 
@@ -81,5 +81,27 @@ describe('behind a trusted proxy', async () => {
     expect(res.status, JSON.stringify(res.body)).toBe(202)
     expect(res.headers.get('ratelimit-limit')).toBe('10')
     expect(res.headers.get('ratelimit-remaining')).toBe('9')
+  })
+
+  it('anonymous enquiries: the 61st in an hour from one address is 429 and writes nothing; a signed-in specifier is not held', async () => {
+    const headers = freshAddress()
+    const body = (i: number) => ({
+      requester: { name: 'Limit Probe', organisation: 'Limit Probe Practice', email: 'limit-probe@example.invalid', phone: '+353 1 555 0142' },
+      project: { name: 'Limit probe', region: 'Dublin', stage: 'planning' },
+      topic: 'other', subject: `Limit probe ${i}`, question: 'Is there a limit on anonymous enquiries from one address?', priority: 'normal',
+    })
+    for (let i = 0; i < 60; i++) {
+      const res = await call('/api/enquiries', { body: body(i), headers })
+      expect(res.status, JSON.stringify(res.body)).toBe(201)
+    }
+    const count = async () => Number((await testDb().query<{ n: number }>('SELECT COUNT(*) AS n FROM enquiries WHERE subject LIKE ?', { replacements: ['Limit probe %'], type: QueryTypes.SELECT }))[0]!.n)
+    expect(await count()).toBe(60)
+    const limited = await call('/api/enquiries', { body: body(60), headers })
+    expect(limited.status).toBe(429)
+    expect(Number(limited.headers.get('retry-after'))).toBeGreaterThan(3000)
+    expect(limited.body.message).toMatch(/^At most 60 enquiries an hour can be sent from one address without signing in\. Sign in, or try again in \d+ minutes\.$/)
+    expect(await count()).toBe(60)
+    const specifier = await signIn(demo.specA, undefined, headers)
+    expect((await call('/api/enquiries', { body: { ...body(61), requester: undefined }, headers, cookie: specifier })).status).toBe(201)
   })
 })

@@ -165,10 +165,11 @@ export function anonymousEnquiry(subject: string) {
   }
 }
 
-export async function postEnquiry(base: string, subject: string): Promise<Response> {
+/** An enquiry sent anonymously, or by the signed-in caller whose cookie is given (not held by the anonymous limit). */
+export async function postEnquiry(base: string, subject: string, cookie?: string): Promise<Response> {
   return fetch(`${base}/api/enquiries`, {
     method: 'POST',
-    headers: { 'content-type': 'application/json', 'origin': base, 'accept': 'application/json' },
+    headers: { 'content-type': 'application/json', 'origin': base, 'accept': 'application/json', ...(cookie ? { cookie } : {}) },
     body: JSON.stringify(anonymousEnquiry(subject)),
   })
 }
