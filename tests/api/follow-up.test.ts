@@ -5,6 +5,7 @@ import { formatCents } from '../../shared/calc'
 import type { CreateQuotationInput } from '../../shared/workbench/quotation'
 import { call, currentYear, demo, signIn } from '../support/api'
 import { closeTestDb, testDb } from '../support/db'
+import { enquiryInHand as inHand } from '../support/enquiries'
 import { pdfText } from '../support/pdf'
 import { useBuiltServer } from '../support/server'
 
@@ -53,14 +54,8 @@ describe('after the first answer', async () => {
     await closeTestDb()
   })
 
-  async function enquiryInHand(topic: string, subject: string) {
-    const created = await call('/api/enquiries', { body: intake(topic, subject), cookie: specA })
-    expect(created.status, JSON.stringify(created.body)).toBe(201)
-    const ref = created.body.ref as string
-    expect((await call(`/api/enquiries/${ref}`, { method: 'PATCH', cookie: officer, body: { status: 'in_hand' } })).status).toBe(200)
-    const [row] = await rows<{ id: number }>('SELECT id FROM enquiries WHERE ref = ?', [ref])
-    return { ref, id: row!.id }
-  }
+  /** A new enquiry of specifier A's, taken in hand by the officer. */
+  const enquiryInHand = (topic: string, subject: string) => inHand({ specifier: specA, officer }, intake(topic, subject))
 
   describe('a quotation in a response pack', () => {
     it('goes out inside the pack PDF with its lines and total, and a foreign quotation is refused', async () => {

@@ -10,6 +10,7 @@ import type { CaughtMail } from '../../scripts/mail-catcher'
 import { packCautionTexts } from '../../shared/schemas/pack'
 import { call, demo, signIn } from '../support/api'
 import { closeTestDb, testDb } from '../support/db'
+import { enquiryInHand as inHand } from '../support/enquiries'
 import { rootDir, useBuiltServer } from '../support/server'
 import { demoWall } from '../support/walls'
 import { pdfText } from '../support/pdf'
@@ -49,14 +50,7 @@ describe('response packs', async () => {
   })
 
   /** A new enquiry of specifier A's, taken in hand by the officer. */
-  async function enquiryInHand(topic: string, subject: string) {
-    const created = await call('/api/enquiries', { body: intake(topic, subject), cookie: specA })
-    expect(created.status, JSON.stringify(created.body)).toBe(201)
-    const ref = created.body.ref as string
-    expect((await call(`/api/enquiries/${ref}`, { method: 'PATCH', cookie: officer, body: { status: 'in_hand' } })).status).toBe(200)
-    const [row] = await rows<{ id: number }>('SELECT id FROM enquiries WHERE ref = ?', [ref])
-    return { ref, id: row!.id }
-  }
+  const enquiryInHand = (topic: string, subject: string) => inHand({ specifier: specA, officer }, intake(topic, subject))
 
   async function saveCalculation(ref: string): Promise<number> {
     const res = await call(`/api/enquiries/${ref}/calculations`, { cookie: officer, body: { method: 'u-value', inputs: demoWall } })

@@ -3,10 +3,8 @@ import { url } from '@nuxt/test-utils/e2e'
 import PDFDocument from 'pdfkit'
 import type { Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { launchChromium, screenshotDir } from '../support/chromium'
+import { launchChromium, screenshotDir, signInPage } from '../support/chromium'
 import { useBuiltServer } from '../support/server'
-
-const password = 'corrstone-demo-2026'
 
 /** A real one-page PDF drawing, made here so the preview has something to render. */
 function drawingPdf(title: string): Promise<Buffer> {
@@ -24,14 +22,6 @@ function drawingPdf(title: string): Promise<Buffer> {
 }
 // A valid 1×1 PNG.
 const onePixelPng = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAQAAAC1HAwCAAAAC0lEQVR42mNkYAAAAAYAAjCB0C8AAAAASUVORK5CYII=', 'base64')
-
-async function signIn(page: Page, email: string) {
-  await page.goto(url('/sign-in'), { waitUntil: 'networkidle' })
-  await page.getByLabel('E-mail').fill(email)
-  await page.getByLabel('Password').fill(password)
-  await page.getByRole('main').getByRole('button', { name: 'Sign in' }).click()
-  await page.getByTestId('signed-in-as').waitFor()
-}
 
 async function signOut(page: Page) {
   await page.getByRole('button', { name: 'Sign out' }).click()
@@ -125,7 +115,7 @@ describe('the enquiry desk from intake to the requester\'s reply', async () => {
   })
 
   it('takes an enquiry from a signed-in specifier, who skips the step about themselves', async () => {
-    await signIn(page, 'architect@hallorans.example')
+    await signInPage(page, 'architect@hallorans.example')
     await page.goto(url('/enquire'), { waitUntil: 'networkidle' })
     await page.getByTestId('intake-signed-in').waitFor()
     specifierRef = await fillFromProject(page, 'Eaves psi value for Glenmore Terrace', [
@@ -137,7 +127,7 @@ describe('the enquiry desk from intake to the requester\'s reply', async () => {
   })
 
   it('lets an officer find, take and preview the enquiry, note internally and wait on the requester', async () => {
-    await signIn(page, 'officer@corrstone.example')
+    await signInPage(page, 'officer@corrstone.example')
     const publicRow = await openFromQueue(page, publicRef)
     await expect(publicRow.innerText()).resolves.toContain('Saoirse Public')
 
@@ -191,7 +181,7 @@ describe('the enquiry desk from intake to the requester\'s reply', async () => {
   })
 
   it('shows the specifier the public thread only and takes their reply with another file', async () => {
-    await signIn(page, 'architect@hallorans.example')
+    await signInPage(page, 'architect@hallorans.example')
     await page.getByRole('link', { name: 'My enquiries' }).click()
     await page.getByRole('link', { name: specifierRef }).click()
     await page.waitForURL(new RegExp(`/my-enquiries/${specifierRef}$`))
@@ -208,7 +198,7 @@ describe('the enquiry desk from intake to the requester\'s reply', async () => {
   })
 
   it('shows the officer the reply, with the enquiry back in hand', async () => {
-    await signIn(page, 'officer@corrstone.example')
+    await signInPage(page, 'officer@corrstone.example')
     const row = await openFromQueue(page, specifierRef)
     await expect(row.getByTestId('status-badge').innerText()).resolves.toBe('In hand')
     await row.getByRole('link', { name: specifierRef }).click()
@@ -219,7 +209,7 @@ describe('the enquiry desk from intake to the requester\'s reply', async () => {
   })
 
   it('lets a manager read and save the service targets in working days and hours', async () => {
-    await signIn(page, 'manager@corrstone.example')
+    await signInPage(page, 'manager@corrstone.example')
     await page.goto(url('/desk'), { waitUntil: 'networkidle' })
     await page.getByRole('link', { name: 'Service targets' }).click()
     await page.waitForURL(/\/desk\/targets$/)

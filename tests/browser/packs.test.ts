@@ -2,11 +2,10 @@ import { mkdtempSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { fetch, url } from '@nuxt/test-utils/e2e'
-import type { Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { startMailCatcher } from '../../scripts/mail-catcher'
-import { call, DEMO_PASSWORD, demo, signIn as apiSignIn } from '../support/api'
-import { launchChromium, screenshotDir } from '../support/chromium'
+import { call, demo, signIn as apiSignIn } from '../support/api'
+import { launchChromium, screenshotDir, signInPage } from '../support/chromium'
 import { pdfText } from '../support/pdf'
 import { useBuiltServer } from '../support/server'
 import { demoWall } from '../support/walls'
@@ -20,14 +19,6 @@ import { demoWall } from '../support/walls'
 const mailboxDir = mkdtempSync(join(tmpdir(), 'perpend-mailbox-'))
 const catcher = await startMailCatcher({ port: 0, dir: mailboxDir })
 
-
-async function signIn(page: Page, email: string) {
-  await page.goto(url('/sign-in'), { waitUntil: 'networkidle' })
-  await page.getByLabel('E-mail').fill(email)
-  await page.getByLabel('Password').fill(DEMO_PASSWORD)
-  await page.getByRole('main').getByRole('button', { name: 'Sign in' }).click()
-  await page.getByTestId('signed-in-as').waitFor()
-}
 
 describe('a response pack from the composer to the requester and the mailbox', async () => {
   await useBuiltServer({ NUXT_MAIL_URL: `smtp://127.0.0.1:${catcher.port}`, PERPEND_DEV_MAILBOX: '1', PERPEND_MAILBOX_DIR: mailboxDir })
@@ -61,7 +52,7 @@ describe('a response pack from the composer to the requester and the mailbox', a
   it('lets the officer compose the pack with one detail and one calculation and issue it', async () => {
     const page = await browser.context.newPage()
     page.on('pageerror', e => errors.push(e.message))
-    await signIn(page, demo.officer)
+    await signInPage(page, demo.officer)
     await page.goto(url(`/desk/${ref}`), { waitUntil: 'networkidle' })
     const composer = page.getByRole('region', { name: 'Response pack' })
     await composer.getByLabel('Reply').fill(`## Fixing at the jamb\n\n${reply}`)
@@ -79,10 +70,9 @@ describe('a response pack from the composer to the requester and the mailbox', a
   })
 
   it('shows the requester the answer and the pack under "my enquiries", and the PDF holds what was sent', async () => {
-    await browser.context.clearCookies()
     const page = await browser.context.newPage()
     page.on('pageerror', e => errors.push(e.message))
-    await signIn(page, demo.specA)
+    await signInPage(page, demo.specA)
     await page.goto(url('/my-enquiries'), { waitUntil: 'networkidle' })
     await page.screenshot({ path: join(screenshotDir, 'pack-my-enquiries.png'), fullPage: true })
     const row = page.getByRole('link', { name: new RegExp(ref) }).first()

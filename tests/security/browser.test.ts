@@ -2,8 +2,8 @@ import { join } from 'node:path'
 import { url } from '@nuxt/test-utils/e2e'
 import type { Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { call, callForm, DEMO_PASSWORD, demo, signIn as apiSignIn } from '../support/api'
-import { launchChromium, screenshotDir } from '../support/chromium'
+import { call, callForm, demo, signIn as apiSignIn } from '../support/api'
+import { launchChromium, screenshotDir, signInPage } from '../support/chromium'
 import { makePdf, tinyPng } from '../support/files'
 import { useBuiltServer } from '../support/server'
 
@@ -41,15 +41,6 @@ function watch(page: Page): Watch {
     void d.dismiss()
   })
   return seen
-}
-
-async function signIn(page: Page, email: string) {
-  await page.context().clearCookies()
-  await page.goto(url('/sign-in'), { waitUntil: 'networkidle' })
-  await page.getByLabel('E-mail').fill(email)
-  await page.getByLabel('Password').fill(DEMO_PASSWORD)
-  await page.getByRole('main').getByRole('button', { name: 'Sign in' }).click()
-  await page.getByTestId('signed-in-as').waitFor()
 }
 
 describe('pages in Chromium under the security policy', async () => {
@@ -154,7 +145,7 @@ describe('pages in Chromium under the security policy', async () => {
   })
 
   it('staff pages work with no violation: the queue, an enquiry file with its PDF preview, the U-value workbench', async () => {
-    await signIn(page, demo.officer)
+    await signInPage(page, demo.officer)
     await page.goto(url('/desk'), { waitUntil: 'networkidle' })
     await page.getByTestId('desk-queue').waitFor()
     await page.goto(url(`/desk/${pdfRef}`), { waitUntil: 'networkidle' })
@@ -171,7 +162,7 @@ describe('pages in Chromium under the security policy', async () => {
   })
 
   it('the turnaround page draws its charts with no violation', async () => {
-    await signIn(page, demo.manager)
+    await signInPage(page, demo.manager)
     await page.goto(url('/turnaround'), { waitUntil: 'networkidle' })
     await page.getByTestId('turnaround-tiles').waitFor()
     await expect.poll(() => page.locator('canvas').count(), { timeout: 20_000 }).toBeGreaterThan(0)
@@ -179,7 +170,7 @@ describe('pages in Chromium under the security policy', async () => {
   })
 
   it('no payload runs in the officer\'s enquiry file or the queue', async () => {
-    await signIn(page, demo.officer)
+    await signInPage(page, demo.officer)
     for (const ref of [hostileRef, anonymousRef]) {
       await page.goto(url(`/desk/${ref}`), { waitUntil: 'networkidle' })
       await page.getByText(marker).first().waitFor()
@@ -198,7 +189,7 @@ describe('pages in Chromium under the security policy', async () => {
   })
 
   it('no payload runs on the requester\'s "my enquiries" list and file', async () => {
-    await signIn(page, demo.specA)
+    await signInPage(page, demo.specA)
     await page.goto(url('/my-enquiries'), { waitUntil: 'networkidle' })
     await page.getByText(marker).first().waitFor()
     await page.goto(url(`/my-enquiries/${hostileRef}`), { waitUntil: 'networkidle' })
