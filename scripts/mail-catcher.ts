@@ -7,27 +7,13 @@ import { pathToFileURL } from 'node:url'
 import { simpleParser } from 'mailparser'
 import type { AddressObject } from 'mailparser'
 import { SMTPServer } from 'smtp-server'
+import type { StoredMail, StoredMailAttachment } from '../shared/types/caught-mail'
 
-export interface CaughtAttachment {
-  filename: string | null
-  contentType: string
-  size: number
+export interface CaughtAttachment extends StoredMailAttachment {
   content: Buffer
 }
 
-export interface CaughtMail {
-  id: string
-  receivedAt: string
-  envelopeFrom: string | null
-  envelopeTo: string[]
-  from: string
-  to: string
-  subject: string
-  text: string
-  html: string | null
-  headers: Record<string, string>
-  attachments: CaughtAttachment[]
-}
+export type CaughtMail = StoredMail<CaughtAttachment>
 
 export interface MailCatcher {
   port: number

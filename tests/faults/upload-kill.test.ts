@@ -92,7 +92,8 @@ describe('a server killed mid-upload', () => {
     expect(list(incoming)).toContain(partial)
 
     server = await startChildServer(env)
-    await waitUntil('the start-up sweep to remove the cut-off upload', () => list(incoming).length === 0, 20_000)
+    // The sweep removes the folder and then logs it; wait for both, the log reaching us through a pipe.
+    await waitUntil('the start-up sweep to remove the cut-off upload', () => list(incoming).length === 0 && /swept \d+ unfinished/.test(server.output()), 20_000)
     expect(server.output()).toMatch(/swept 1 unfinished upload folder/)
 
     expect(await counts()).toEqual(before)

@@ -1,19 +1,6 @@
 import { readdir, readFile } from 'node:fs/promises'
 import { join } from 'node:path'
-
-interface StoredMail {
-  id: string
-  receivedAt: string
-  envelopeFrom: string | null
-  envelopeTo: string[]
-  from: string
-  to: string
-  subject: string
-  text: string
-  html: string | null
-  headers: Record<string, string>
-  attachments: { filename: string | null, contentType: string, size: number }[]
-}
+import type { StoredMail } from '../../../shared/types/caught-mail'
 
 /** The catcher keeps structured headers (dates, addresses) as JSON; show them as text. */
 function headerText(value: string | undefined): string | null {
