@@ -58,7 +58,16 @@ export default defineNuxtConfig({
   },
   eslint: { config: { stylistic: false } },
   typescript: { strict: true },
+  experimental: {
+    // Links fetch the code of the page they lead to when pointed at or focused, not as soon as they are on
+    // screen: the library lists 86 links and the header a dozen, and fetching and running every page's code
+    // at load kept a phone's main thread busy for a second after the page had painted.
+    defaults: { nuxtLink: { prefetchOn: { visibility: false, interaction: true } } },
+  },
   nitro: {
     experimental: { tasks: false },
+    // Build assets are stored gzip- and brotli-compressed beside the originals and served by what the
+    // browser accepts; rendered pages are compressed per response (server/plugins/compress-pages.ts).
+    compressPublicAssets: { gzip: true, brotli: true },
   },
 })

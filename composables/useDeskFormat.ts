@@ -2,15 +2,21 @@ import { formatWorkingDuration } from '~~/shared/time/format-duration'
 
 /** The desk shows every time in the department's own zone, whatever the reader's device says. */
 const deskTimeZone = 'Europe/Dublin'
-const dateTime = new Intl.DateTimeFormat('en-IE', { dateStyle: 'medium', timeStyle: 'short', timeZone: deskTimeZone })
-const dateOnly = new Intl.DateTimeFormat('en-IE', { dateStyle: 'medium', timeZone: deskTimeZone })
+// Made on first use: building a formatter for a named zone loads the zone's rules, which costs a phone tens
+// of milliseconds, and most pages that load this file never show a time.
+let dateTime: Intl.DateTimeFormat | undefined
+let dateOnly: Intl.DateTimeFormat | undefined
 
 export function formatDateTime(value: string | Date | null | undefined): string {
-  return value ? dateTime.format(new Date(value)) : '—'
+  if (!value) return '—'
+  dateTime ??= new Intl.DateTimeFormat('en-IE', { dateStyle: 'medium', timeStyle: 'short', timeZone: deskTimeZone })
+  return dateTime.format(new Date(value))
 }
 
 export function formatDate(value: string | Date | null | undefined): string {
-  return value ? dateOnly.format(new Date(value)) : '—'
+  if (!value) return '—'
+  dateOnly ??= new Intl.DateTimeFormat('en-IE', { dateStyle: 'medium', timeZone: deskTimeZone })
+  return dateOnly.format(new Date(value))
 }
 
 /** "2.4 MB": binary multiples, as file managers show them. */

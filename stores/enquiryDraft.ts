@@ -1,6 +1,5 @@
 import { defineStore } from 'pinia'
-import type { EnquiryTopic } from '~~/shared/types/enquiry'
-import type { Priority, projectStages } from '~~/shared/schemas/enquiry'
+import type { EnquiryTopic, Priority, projectStages } from '~~/shared/types/enquiry'
 
 /** Form fields as typed: strings while being edited, parsed by the shared schema when a step is left. */
 function emptyDraft() {

@@ -1,6 +1,6 @@
 import { DataTypes, Model } from 'sequelize'
 import type { ForeignKey, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize'
-import type { ItemStatus } from '../../shared/library/schemas'
+import type { ItemStatus } from '../../shared/library/terms'
 
 /** A manager's status mark over a library item's own status (one row per marked code). */
 export class LibraryOverride extends Model<InferAttributes<LibraryOverride>, InferCreationAttributes<LibraryOverride>> {

@@ -1,6 +1,6 @@
 import type { H3Event } from 'h3'
 import type { Transaction } from 'sequelize'
-import { enquiryRefSchema } from '../../shared/types/enquiry'
+import { enquiryRefSchema } from '../../shared/schemas/enquiry'
 import { Enquiry } from '../models'
 import type { Caller } from './access'
 

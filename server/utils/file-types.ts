@@ -1,6 +1,6 @@
 import { open } from 'node:fs/promises'
 import { fileTypeFromFile } from 'file-type'
-import type { AcceptedFileType } from '../../shared/schemas/enquiry'
+import type { AcceptedFileType } from '../../shared/types/enquiry'
 
 const contentTypes: Record<AcceptedFileType, string> = {
   pdf: 'application/pdf',

@@ -1,8 +1,9 @@
 import { queryCollection } from '@nuxt/content/server'
 import type { H3Event } from 'h3'
 import { LibraryOverride } from '../models'
-import type { ItemStatus, JunctionType, LibraryCollection, RevisionEntry } from '../../shared/library/schemas'
-import { libraryCollections } from '../../shared/library/inputs'
+import type { RevisionEntry } from '../../shared/library/schemas'
+import type { ItemStatus, JunctionType, LibraryCollection } from '../../shared/library/terms'
+import { libraryCollections } from '../../shared/library/terms'
 import { buildSearchIndex, rankSearch, searchPage } from '../../shared/library/search'
 import type { EffectiveStatus, LibrarySearchFilters, LibrarySearchIndex, SearchDocument } from '../../shared/library/search'
 

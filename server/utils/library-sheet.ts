@@ -1,6 +1,5 @@
 import type { H3Event } from 'h3'
-import { junctionTypeLabels } from '../../shared/library/schemas'
-import { itemStatusLabels, libraryCollectionLabels } from '../../shared/library/inputs'
+import { itemStatusLabels, junctionTypeLabels, libraryCollectionLabels } from '../../shared/library/terms'
 
 /**
  * The library's printable sheet of one item: title block, drawing, key values, body, revision history,

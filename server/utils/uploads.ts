@@ -5,8 +5,8 @@ import { hostname } from 'node:os'
 import { join, resolve } from 'node:path'
 import formidable, { errors as formidableErrors } from 'formidable'
 import type { H3Event } from 'h3'
-import { uploadLimits } from '../../shared/schemas/enquiry'
-import type { AcceptedFileType } from '../../shared/schemas/enquiry'
+import { uploadLimits } from '../../shared/types/enquiry'
+import type { AcceptedFileType } from '../../shared/types/enquiry'
 
 export interface ReceivedFile {
   tmpPath: string

@@ -1,18 +1,10 @@
 import { z } from 'zod'
-import { anyCodePattern, itemStatusSchema, junctionTypeSchema } from './schemas'
+import { itemStatusSchema, junctionTypeSchema } from './schemas'
+import { anyCodePattern, libraryCollections } from './terms'
 
 /** Inputs of the library's routes, shared by the pages that send them and the routes that check them. */
 
-export const libraryCollections = ['details', 'clauses', 'guidance'] as const
 export const libraryCollectionSchema = z.enum(libraryCollections)
-
-export const libraryCollectionLabels: Record<(typeof libraryCollections)[number], string> = {
-  details: 'Junction details',
-  clauses: 'Specification clauses',
-  guidance: 'Guidance notes',
-}
-
-export const itemStatusLabels = { current: 'Current', superseded: 'Superseded' } as const
 
 /** A code in the URL; written in any case, answered in capitals. */
 export const libraryCodeSchema = z

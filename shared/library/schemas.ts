@@ -1,57 +1,12 @@
 import { z } from 'zod'
+import { anyCodePattern, clauseCodePattern, detailCodePattern, guidanceCodePattern, itemStatuses, junctionTypes } from './terms'
+import type { ItemStatus, LibraryCollection } from './terms'
 
 /**
  * Front-matter schemas for the three library collections (details, clauses, guidance).
  * The same schemas serve the content configuration, the server's search index and the tests
  * that walk the content folders, so a field is named and checked in one place only.
  */
-
-/** Junction types a detail can describe, in the order the library lists them. */
-export const junctionTypes = [
-  'ground-floor',
-  'window-head',
-  'window-jamb',
-  'window-sill',
-  'door-threshold',
-  'eaves',
-  'verge',
-  'intermediate-floor',
-  'party-wall',
-  'external-corner',
-  'internal-corner',
-  'balcony',
-  'service-penetration',
-  'movement-joint',
-  'plinth',
-] as const
-
-export const junctionTypeSchema = z.enum(junctionTypes)
-export type JunctionType = z.infer<typeof junctionTypeSchema>
-
-/** Human labels for the junction types, as shown in filters and on detail sheets. */
-export const junctionTypeLabels: Record<JunctionType, string> = {
-  'ground-floor': 'Ground floor',
-  'window-head': 'Window head',
-  'window-jamb': 'Window jamb',
-  'window-sill': 'Window sill',
-  'door-threshold': 'Door threshold',
-  'eaves': 'Eaves',
-  'verge': 'Verge / gable',
-  'intermediate-floor': 'Intermediate floor',
-  'party-wall': 'Party wall',
-  'external-corner': 'External corner',
-  'internal-corner': 'Internal corner',
-  'balcony': 'Balcony',
-  'service-penetration': 'Service penetration',
-  'movement-joint': 'Movement joint',
-  'plinth': 'Plinth',
-}
-
-// Our own code scheme: a letter for the collection, an area or section word, a two-digit serial.
-export const detailCodePattern = /^D-[A-Z]{2,6}-\d{2}$/
-export const clauseCodePattern = /^C-[A-Z]{2,6}-\d{2}$/
-export const guidanceCodePattern = /^G-[A-Z]{2,6}-\d{2}$/
-export const anyCodePattern = /^[DCG]-[A-Z]{2,6}-\d{2}$/
 
 const isoDate = z
   .string()
@@ -69,8 +24,9 @@ export const revisionEntrySchema = z.object({
 })
 export type RevisionEntry = z.infer<typeof revisionEntrySchema>
 
-export const itemStatusSchema = z.enum(['current', 'superseded'])
-export type ItemStatus = z.infer<typeof itemStatusSchema>
+export const junctionTypeSchema = z.enum(junctionTypes)
+
+export const itemStatusSchema = z.enum(itemStatuses)
 
 function commonShape(codePattern: RegExp, example: string) {
   return {
@@ -166,5 +122,4 @@ export const librarySchemas = {
   details: detailSchema,
   clauses: clauseSchema,
   guidance: guidanceSchema,
-} as const
-export type LibraryCollection = keyof typeof librarySchemas
+} as const satisfies Record<LibraryCollection, z.ZodType>

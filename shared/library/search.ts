@@ -1,7 +1,7 @@
 import MiniSearch from 'minisearch'
 import type { Options, SearchOptions, SearchResult } from 'minisearch'
-import { anyCodePattern } from './schemas'
-import type { ItemStatus, JunctionType, LibraryCollection } from './schemas'
+import { anyCodePattern } from './terms'
+import type { ItemStatus, JunctionType, LibraryCollection } from './terms'
 
 /**
  * The library's search, shared by the server's index (server/utils/library-index.ts) and the bench, so the

@@ -1,5 +1,7 @@
 import { z } from 'zod'
-import { roleSchema } from '../types/roles'
+import { roles } from '../types/roles'
+
+export const roleSchema = z.enum(roles)
 
 export const emailSchema = z.string().trim().toLowerCase().max(254, 'That e-mail address is too long').pipe(z.email('Enter a valid e-mail address'))
 

@@ -1,31 +1,14 @@
 import { z } from 'zod'
 import { emailSchema } from './auth'
-import { enquiryStatuses, enquiryStatusSchema, enquiryTopicSchema } from '../types/enquiry'
-import type { EnquiryStatus } from '../types/enquiry'
+import { enquiryRefPattern, enquiryStatuses, enquiryTopics, priorities, projectStages, queueSorts } from '../types/enquiry'
 
-/** Limits shared by the intake form and the server. */
-export const uploadLimits = {
-  maxFiles: 20,
-  maxFileBytes: 100 * 1024 * 1024,
-  maxTotalBytes: 300 * 1024 * 1024,
-  /** Kinds of drawing we accept, recognised from the file's bytes, never its name. */
-  acceptedTypes: ['pdf', 'png', 'jpg', 'webp', 'dwg', 'dxf', 'ifc', 'zip'] as const,
-  acceptAttribute: '.pdf,.png,.jpg,.jpeg,.webp,.dwg,.dxf,.ifc,.zip',
-}
-export type AcceptedFileType = typeof uploadLimits.acceptedTypes[number]
+export const enquiryStatusSchema = z.enum(enquiryStatuses)
+export const enquiryTopicSchema = z.enum(enquiryTopics)
+export const enquiryRefSchema = z.object({
+  ref: z.string().regex(enquiryRefPattern, 'Not a valid enquiry reference'),
+})
 
-export const projectStages = ['feasibility', 'planning', 'tender', 'construction', 'completed'] as const
-export const projectStageLabels: Record<typeof projectStages[number], string> = {
-  feasibility: 'Feasibility',
-  planning: 'Planning',
-  tender: 'Tender',
-  construction: 'Construction',
-  completed: 'Completed',
-}
-export const priorities = ['normal', 'urgent'] as const
 export const prioritySchema = z.enum(priorities)
-export type Priority = z.infer<typeof prioritySchema>
-export const priorityLabels: Record<Priority, string> = { normal: 'Normal', urgent: 'Urgent — site stopped' }
 
 const optionalText = (max: number) => z.string().trim().max(max).optional().transform(v => (v ? v : undefined))
 
@@ -59,19 +42,6 @@ export const enquiryIntakeSchema = z.object({
   project: projectInputSchema,
 }).extend(questionSchema.shape)
 export type EnquiryIntake = z.infer<typeof enquiryIntakeSchema>
-
-/** Which status may follow which; the server refuses anything else. */
-export const statusTransitions: Record<EnquiryStatus, EnquiryStatus[]> = {
-  received: ['triaged', 'in_hand', 'closed'],
-  triaged: ['in_hand', 'closed'],
-  in_hand: ['waiting_on_requester', 'answered', 'closed'],
-  waiting_on_requester: ['in_hand', 'answered', 'closed'],
-  answered: ['closed', 'reopened'],
-  closed: ['reopened'],
-  reopened: ['in_hand', 'waiting_on_requester', 'answered', 'closed'],
-}
-
-export const queueSorts = ['received-desc', 'received-asc', 'due-asc', 'priority'] as const
 
 const csv = <T extends z.ZodType>(item: T) => z.union([item, z.array(item)]).optional()
   .transform(v => (v === undefined ? undefined : Array.isArray(v) ? v : [v]))

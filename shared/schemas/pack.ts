@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { anyCodePattern } from '../library/schemas'
+import { anyCodePattern } from '../library/terms'
 
 /**
  * Response packs: the inputs of their routes, the policy that asks for a second officer's check, and the

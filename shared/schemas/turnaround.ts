@@ -1,6 +1,5 @@
 import { z } from 'zod'
-import { prioritySchema } from './enquiry'
-import { enquiryTopicSchema } from '../types/enquiry'
+import { enquiryTopicSchema, prioritySchema } from './enquiry'
 
 /** The periods a manager can choose; `custom` takes local dates `from` and `to` (both days included). */
 export const turnaroundPeriods = ['week', '4-weeks', 'quarter', 'custom'] as const

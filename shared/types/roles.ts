@@ -1,9 +1,6 @@
-import { z } from 'zod'
-
 /** Who a signed-in person is to Perpend. Anonymous visitors have no role: they are the public. */
 export const roles = ['specifier', 'officer', 'manager', 'admin'] as const
-export const roleSchema = z.enum(roles)
-export type Role = z.infer<typeof roleSchema>
+export type Role = typeof roles[number]
 
 /** Staff work the desk; managers and admins inherit everything officers may do. */
 export const staffRoles: readonly Role[] = ['officer', 'manager', 'admin']

@@ -16,6 +16,11 @@ describe('detail library in Chromium', async () => {
     const page = await browser.context.newPage()
     await page.goto(url('/library'), { waitUntil: 'networkidle' })
     await expect(page.locator('h1').innerText()).resolves.toBe('Detail library')
+    // The whole library is listed two dozen at a time; more on request.
+    const results = page.getByTestId('library-results').locator('li')
+    await expect(results.count()).resolves.toBe(24)
+    await page.getByTestId('library-more').click()
+    await expect.poll(() => results.count()).toBe(48)
 
     // Typing, with no Enter: the results follow the words and the URL keeps them.
     await page.getByLabel('Search').pressSequentially('window jamb', { delay: 30 })

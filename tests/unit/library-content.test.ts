@@ -4,13 +4,8 @@ import { fileURLToPath } from 'node:url'
 import { describe, expect, it } from 'vitest'
 import { parse } from 'yaml'
 import { XMLValidator } from 'fast-xml-parser'
-import {
-  clauseSchema,
-  detailSchema,
-  guidanceSchema,
-  junctionTypeLabels,
-  junctionTypes,
-} from '../../shared/library/schemas'
+import { clauseSchema, detailSchema, guidanceSchema } from '../../shared/library/schemas'
+import { junctionTypeLabels, junctionTypes } from '../../shared/library/terms'
 
 // Walks the whole detail library: every item against its collection schema, the links between
 // items, and every drawing as well-formed, self-contained, printable SVG.

@@ -1,5 +1,5 @@
-import { enquiryPatchSchema, statusTransitions } from '../../../shared/schemas/enquiry'
-import { enquiryStatusLabels } from '../../../shared/types/enquiry'
+import { enquiryPatchSchema } from '../../../shared/schemas/enquiry'
+import { enquiryStatusLabels, statusTransitions } from '../../../shared/types/enquiry'
 import type { EnquiryStatus } from '../../../shared/types/enquiry'
 import { EnquiryEvent, User } from '../../models'
 

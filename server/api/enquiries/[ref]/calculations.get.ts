@@ -1,4 +1,4 @@
-import { enquiryRefSchema } from '../../../../shared/types/enquiry'
+import { enquiryRefSchema } from '../../../../shared/schemas/enquiry'
 import { Calculation, Enquiry, User } from '../../../models'
 
 /** The calculations saved to an enquiry, oldest first, for staff and for the enquiry's own organisation. */

@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { ENGINE_VERSION } from '../../../../shared/calc'
-import { enquiryRefSchema } from '../../../../shared/types/enquiry'
+import { enquiryRefSchema } from '../../../../shared/schemas/enquiry'
 import { Calculation, Enquiry, User } from '../../../models'
 
 // Outputs are deliberately not part of the body: the server runs the engine and stores its own answer.

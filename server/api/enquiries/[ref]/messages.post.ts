@@ -1,4 +1,5 @@
-import { messageInputSchema, uploadLimits } from '../../../../shared/schemas/enquiry'
+import { messageInputSchema } from '../../../../shared/schemas/enquiry'
+import { uploadLimits } from '../../../../shared/types/enquiry'
 import { Attachment, EnquiryMessage } from '../../../models'
 import type { ReceivedForm } from '../../../utils/uploads'
 
