@@ -11,14 +11,19 @@
  *   <ol @click="follow" @pointerover.once="prefetch" @focusin.once="prefetch">
  */
 export function useListLinks(samplePath: string | (() => string | undefined)) {
+  const router = useRouter()
+
   function follow(event: MouseEvent) {
     if (event.defaultPrevented || event.button !== 0 || event.metaKey || event.ctrlKey || event.shiftKey || event.altKey) return
     const link = (event.target as Element | null)?.closest?.('a')
     if (!link || (link.target && link.target !== '_self') || link.hasAttribute('download')) return
     const url = new URL(link.href, window.location.href)
     if (url.origin !== window.location.origin) return
+    // Only a page of the app moves within it; a file (a PDF under /api/, say) is the browser's to open.
+    const path = url.pathname + url.search + url.hash
+    if (!router.resolve(path).matched.length) return
     event.preventDefault()
-    void navigateTo(url.pathname + url.search + url.hash)
+    void navigateTo(path)
   }
 
   function prefetch() {

@@ -60,6 +60,28 @@ describe('detail library in Chromium', async () => {
     expect(text).toContain('D-WIN-03')
   })
 
+  it('opens a listed item inside the app, and leaves a Ctrl-click to the browser', async () => {
+    const page = await browser.context.newPage()
+    await page.goto(url('/library'), { waitUntil: 'networkidle' })
+    const first = page.getByTestId('library-results').getByRole('link').first()
+    const href = await first.getAttribute('href')
+    expect(href).toMatch(/^\/library\/[A-Z]-[A-Z]+-\d+$/)
+
+    // Ctrl-click: a new tab, this page stays where it is.
+    const [opened] = await Promise.all([browser.context.waitForEvent('page'), first.click({ modifiers: ['Control'] })])
+    await opened.waitForURL(new RegExp(`${href}$`))
+    await opened.close()
+    expect(new URL(page.url()).pathname).toBe('/library')
+
+    // A plain click moves within the app: the page is not loaded again (what this window holds survives).
+    await page.evaluate(() => { (window as unknown as { stayed: boolean }).stayed = true })
+    await first.click()
+    await page.waitForURL(new RegExp(`${href}$`))
+    await page.locator('h1').waitFor()
+    await expect(page.evaluate(() => (window as unknown as { stayed?: boolean }).stayed)).resolves.toBe(true)
+    await page.close()
+  })
+
   it('shows a superseded detail with a link to its successor', async () => {
     const page = await browser.context.newPage()
     await page.goto(url('/library/D-GRD-01'))
