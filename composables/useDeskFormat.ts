@@ -9,9 +9,9 @@ const deskTimeZone = 'Europe/Dublin'
 let dateTime: Intl.DateTimeFormat | undefined
 let dateOnly: Intl.DateTimeFormat | undefined
 
-// The first use of Intl in a page holds a phone's main thread for 100–200 ms (the ICU library starts, then
-// the zone's rules load: about 190 ms at Lighthouse's 4× CPU slowdown), which was most of the desk's blocking
-// time at load. So the labels the server makes while rendering a page travel in the page's payload, and
+// The first use of Intl in a page holds the main thread in one block while the ICU library starts and then
+// the zone's rules load: in Chromium at Lighthouse's 4× CPU slowdown, 120–180 ms for the first number format
+// and up to 390 ms for the first zoned date format. On the desk that was most of the blocking time at load. So the labels the server makes while rendering a page travel in the page's payload, and
 // hydrating the page reads them back instead of formatting again. Only a time the server never showed (new
 // rows after a filter change) is formatted in the browser. Labels are written on the server only: writing
 // reactive state while rendering in the browser would render the component a second time.
